@@ -1,0 +1,77 @@
+import path from 'node:path';
+import type { ChildProcess } from 'node:child_process';
+import { ensureDebianPackages } from './lib/debian';
+import { startPostgres } from './lib/postgres';
+import { startRedis, waitForPort } from './lib/redis';
+import { ROOT, runBin, runTs, startTs } from './lib/processes';
+import { startIdentityFake } from './identity-fake';
+import { startMailSink } from './mail-sink';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_ROLE_MAP } from './demo-accounts';
+
+/** `npm start`: every service on loopback, the demo plant once, the built client, API and worker. */
+const PORTS = { app: 5180, idp: 5181, mailHttp: 5182, smtp: 2525, pg: 54330, redis: 63790 };
+const DATA = path.join(ROOT, 'data');
+const log = (msg: string) => console.log(`[linewright] ${msg}`);
+
+async function main() {
+  const dev = process.argv.includes('--dev');
+  ensureDebianPackages(['postgresql', 'redis-server']);
+  const pg = startPostgres({ dir: path.join(DATA, 'pg'), port: PORTS.pg, database: 'linewright' });
+  const redis = await startRedis({ port: PORTS.redis, dir: path.join(DATA, 'redis') });
+  const origin = `http://127.0.0.1:${PORTS.app}`;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: 'development',
+    PORT: String(PORTS.app),
+    APP_ORIGIN: dev ? 'http://127.0.0.1:5173' : origin,
+    DATABASE_URL: pg.url,
+    REDIS_URL: redis.url,
+    OIDC_ISSUER: `http://127.0.0.1:${PORTS.idp}`,
+    OIDC_ROLE_MAP: DEMO_ROLE_MAP,
+    SMTP_URL: `smtp://127.0.0.1:${PORTS.smtp}`,
+  };
+  const idp = await startIdentityFake({ port: PORTS.idp, appOrigin: env.APP_ORIGIN!, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
+  const mail = await startMailSink({ smtpPort: PORTS.smtp, httpPort: PORTS.mailHttp });
+  log('migrating the database…');
+  runTs('migration', 'server/db/migrate.ts', env);
+  runTs('demo plant', 'scripts/seed-demo.ts', env);
+  if (!dev) {
+    log('building the client…');
+    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], env);
+  }
+  const children: ChildProcess[] = [startTs('server/index.ts', { ...env, LW_PROCESS: 'api' }), startTs('worker/index.ts', { ...env, LW_PROCESS: 'worker' })];
+  if (dev) children.push(startTs('scripts/vite-dev.ts', env));
+  await waitForPort(PORTS.app, 30_000);
+
+  const accounts = DEMO_ACCOUNTS.map((a) => `    ${a.username.padEnd(11)} ${a.role.padEnd(11)} ${a.name}`).join('\n');
+  console.log(`
+  Linewright is up.
+
+  Open        ${env.APP_ORIGIN}
+  Sign in     with a demo account below, password "${DEMO_PASSWORD}"
+${accounts}
+  Mail        captured mail is at ${mail.viewerUrl}
+  Data        ${path.relative(ROOT, DATA)}/ (kept between runs)
+
+  Ctrl-C stops everything.
+`);
+
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    log('stopping…');
+    await Promise.all(children.map((c) => new Promise<void>((r) => (c.exitCode !== null ? r() : (c.once('exit', () => r()), c.kill('SIGTERM'))))));
+    await Promise.all([idp.stop(), mail.stop(), redis.stop()]);
+    pg.stop();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void stop());
+  process.on('SIGTERM', () => void stop());
+  for (const c of children) c.on('exit', (code) => !stopping && (log(`a process stopped (exit ${code}); stopping the rest`), void stop()));
+}
+
+main().catch((err) => {
+  console.error(`[linewright] could not start: ${err.message}`);
+  process.exit(1);
+});

@@ -1,0 +1,73 @@
+import { chmodSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { spawn } from 'node:child_process';
+import os from 'node:os';
+import path from 'node:path';
+import { ensureDebianPackages } from './lib/debian';
+import { startPostgres } from './lib/postgres';
+import { startRedis } from './lib/redis';
+import { BIN, ROOT, runBin, runTs } from './lib/processes';
+import { startIdentityFake } from './identity-fake';
+import { startMailSink } from './mail-sink';
+import { DEMO_ROLE_MAP } from './demo-accounts';
+import { TEST_PORTS } from '../tests/helpers/ports';
+
+/** `npm test`: throw-away PostgreSQL and Redis on ports of their own, every test, then clean up. */
+async function main(): Promise<number> {
+  ensureDebianPackages(['postgresql', 'redis-server', 'chromium']);
+  const tmp = mkdtempSync(path.join(os.tmpdir(), 'linewright-test-'));
+  chmodSync(tmp, 0o755);
+  const pg = startPostgres({ dir: path.join(tmp, 'pg'), port: TEST_PORTS.pg, database: 'linewright_test', fsync: false });
+  const redis = await startRedis({ port: TEST_PORTS.redis });
+  const origin = `http://127.0.0.1:${TEST_PORTS.app}`;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    LW_TEST_PORT_BASE: String(TEST_PORTS.app),
+    NODE_ENV: 'test',
+    LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
+    PORT: String(TEST_PORTS.app),
+    APP_ORIGIN: origin,
+    DATABASE_URL: pg.url,
+    REDIS_URL: redis.url,
+    OIDC_ISSUER: `http://127.0.0.1:${TEST_PORTS.idp}`,
+    OIDC_ROLE_MAP: DEMO_ROLE_MAP,
+    SMTP_URL: `smtp://127.0.0.1:${TEST_PORTS.smtp}`,
+    IMPORT_INLINE_LIMIT: '50',
+    CLIENT_DIST: 'dist',
+  };
+  const idp = await startIdentityFake({ port: TEST_PORTS.idp, appOrigin: origin, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
+  const mail = await startMailSink({ smtpPort: TEST_PORTS.smtp, httpPort: TEST_PORTS.mailHttp });
+  try {
+    runTs('migration', 'server/db/migrate.ts', env);
+    if (process.argv.includes('--serve')) return await serve(env);
+    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], env);
+    // Not spawnSync: the sign-in fake and the mail sink live in this process and must keep answering.
+    const vitest = spawn(BIN('vitest'), ['run', ...process.argv.slice(2)], { cwd: ROOT, env, stdio: 'inherit' });
+    return await new Promise<number>((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
+  } finally {
+    await Promise.all([idp.stop(), mail.stop(), redis.stop()]);
+    pg.stop();
+    rmSync(tmp, { recursive: true, force: true });
+  }
+}
+
+/**
+ * `tsx scripts/test.ts --serve`: keeps the test services up and writes their environment to
+ * .tmp/test-env-<port>.sh, so a developer can run `set -a; . .tmp/test-env-5290.sh; npx vitest run <file>`.
+ */
+async function serve(env: NodeJS.ProcessEnv): Promise<number> {
+  const keys = ['LW_TEST_PORT_BASE', 'NODE_ENV', 'LOG_LEVEL', 'PORT', 'APP_ORIGIN', 'DATABASE_URL', 'REDIS_URL', 'OIDC_ISSUER', 'OIDC_ROLE_MAP', 'SMTP_URL', 'IMPORT_INLINE_LIMIT', 'CLIENT_DIST'];
+  mkdirSync(path.join(ROOT, '.tmp'), { recursive: true });
+  const file = path.join(ROOT, '.tmp', `test-env-${TEST_PORTS.app}.sh`);
+  writeFileSync(file, keys.map((k) => `${k}='${env[k]}'`).join('\n') + '\n');
+  console.log(`[linewright] test services are up; environment in ${path.relative(ROOT, file)}. Ctrl-C stops them.`);
+  await new Promise<void>((resolve) => process.once('SIGINT', resolve).once('SIGTERM', resolve));
+  return 0;
+}
+
+main().then(
+  (code) => process.exit(code),
+  (err) => {
+    console.error(`[linewright] tests could not run: ${err.stack ?? err}`);
+    process.exit(1);
+  },
+);

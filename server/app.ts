@@ -1,0 +1,58 @@
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import connectPgSimple from 'connect-pg-simple';
+import express from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { config } from '@server/config';
+import { errorHandler, notFound } from '@server/middleware/error-handler';
+import { sameOrigin } from '@server/middleware/same-origin';
+import { requireSignIn } from '@server/middleware/auth';
+import { authRoutes } from '@server/routes/auth-routes';
+import { meRoutes } from '@server/routes/me-routes';
+import { peopleRoutes } from '@server/routes/people-routes';
+import { lineRoutes } from '@server/routes/line-routes';
+import { lineImportRoutes } from '@server/routes/line-import-routes';
+import { calcRoutes } from '@server/routes/calc-routes';
+import { healthRoutes } from '@server/routes/health-routes';
+
+const PgStore = connectPgSimple(session);
+
+/** Builds the Express app: middleware and routers. It never listens; server/index.ts does. */
+export function createApp() {
+  const app = express();
+  app.set('trust proxy', config.trustProxy);
+  app.disable('x-powered-by');
+  app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
+  app.use(express.json({ limit: '1mb' }));
+  app.use(
+    session({
+      name: 'lw.sid', // its own name: on loopback the sign-in fake's cookies share the host
+      store: new PgStore({ conString: config.databaseUrl, tableName: 'user_sessions', createTableIfMissing: false }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
+    }),
+  );
+
+  app.use('/api/health', healthRoutes);
+  app.use('/auth', sameOrigin, authRoutes);
+  app.use('/api', sameOrigin, requireSignIn);
+  app.use('/api/me', meRoutes);
+  app.use('/api/people', peopleRoutes);
+  app.use('/api/lines', lineRoutes);
+  app.use('/api/line-imports', lineImportRoutes);
+  app.use('/api/calc', calcRoutes);
+  app.use('/api', notFound);
+
+  const dist = path.resolve(config.clientDist);
+  if (existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+  }
+  app.use(notFound);
+  app.use(errorHandler);
+  return app;
+}

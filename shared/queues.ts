@@ -1,0 +1,14 @@
+import { z } from 'zod';
+
+/** Queue names and the shape of each job's data: ids only, never whole objects. */
+export const QUEUES = { imports: 'line-imports', mail: 'mail' } as const;
+
+export const importJobSchema = z.object({ importId: z.string().uuid(), step: z.enum(['preview', 'apply']) });
+export type ImportJob = z.infer<typeof importJobSchema>;
+
+export const mailJobSchema = z.object({
+  to: z.string().min(3),
+  subject: z.string().min(1),
+  text: z.string(),
+});
+export type MailJob = z.infer<typeof mailJobSchema>;

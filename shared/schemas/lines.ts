@@ -1,0 +1,84 @@
+import { z } from 'zod';
+
+export const PIPE_MATERIALS = ['PVC', 'CPVC', 'ABS'] as const;
+export const pipeMaterialSchema = z.enum(PIPE_MATERIALS);
+export type PipeMaterial = z.infer<typeof pipeMaterialSchema>;
+
+export const LINE_STATUSES = ['in-service', 'out-of-service', 'locked-out'] as const;
+export const lineStatusSchema = z.enum(LINE_STATUSES);
+export type LineStatus = z.infer<typeof lineStatusSchema>;
+export const LINE_STATUS_LABELS: Record<LineStatus, string> = {
+  'in-service': 'In service',
+  'out-of-service': 'Out of service',
+  'locked-out': 'Locked out',
+};
+
+export const ISOLATION_KINDS = ['valve', 'blind', 'disconnect'] as const;
+export const isolationKindSchema = z.enum(ISOLATION_KINDS);
+export type IsolationKind = z.infer<typeof isolationKindSchema>;
+/** The positions each kind of isolation point can normally stand in. */
+export const ISOLATION_POSITIONS: Record<IsolationKind, readonly string[]> = {
+  valve: ['open', 'closed'],
+  blind: ['installed', 'removed'],
+  disconnect: ['connected', 'disconnected'],
+};
+
+export const isolationPointSchema = z.object({
+  id: z.string(),
+  tag: z.string(),
+  kind: isolationKindSchema,
+  normalPosition: z.string(),
+  notes: z.string().nullable(),
+});
+export type IsolationPointDto = z.infer<typeof isolationPointSchema>;
+
+export const lineSchema = z.object({
+  id: z.string(),
+  lineNumber: z.string(),
+  area: z.string(),
+  service: z.string(),
+  material: pipeMaterialSchema,
+  schedule: z.string().nullable(),
+  sdr: z.number().nullable(),
+  nominalSize: z.string(),
+  designPressurePsi: z.number(),
+  designTemperatureF: z.number(),
+  drawingRef: z.string().nullable(),
+  notes: z.string().nullable(),
+  status: lineStatusSchema,
+  isolationPointCount: z.number().optional(),
+  updatedAt: z.string(),
+});
+export type LineDto = z.infer<typeof lineSchema>;
+export const lineDetailSchema = lineSchema.extend({ isolationPoints: z.array(isolationPointSchema) });
+export type LineDetailDto = z.infer<typeof lineDetailSchema>;
+
+export const LINE_SORTS = ['lineNumber', 'area', 'service', 'material', 'nominalSize', 'designPressurePsi', 'status', 'updatedAt'] as const;
+
+const csvList = <T extends z.ZodType>(item: T) =>
+  z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(item).optional());
+
+/** Query of the register table: paging, one sort, filters and a line-number search. */
+export const lineListQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+  sort: z.enum(LINE_SORTS).default('lineNumber'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  search: z.string().trim().max(100).optional(),
+  area: csvList(z.string().min(1)),
+  material: csvList(pipeMaterialSchema),
+  size: csvList(z.string().min(1)),
+  status: csvList(lineStatusSchema),
+});
+export type LineListQuery = z.infer<typeof lineListQuerySchema>;
+
+export const lineListResponseSchema = z.object({
+  rows: z.array(lineSchema),
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+  facets: z.object({ areas: z.array(z.string()), sizes: z.array(z.string()) }),
+});
+export type LineListResponse = z.infer<typeof lineListResponseSchema>;
+
+export const lineNumberParamsSchema = z.object({ lineNumber: z.string().min(1).max(100) });

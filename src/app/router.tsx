@@ -1,0 +1,40 @@
+import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import { queryClient } from '@/lib/query-client';
+import { authQueries } from '@/features/auth/api';
+import { AppShell } from '@/components/layouts/app-shell';
+import { RouteError } from '@/components/layouts/route-error';
+
+/** Every page behind sign-in: without a person, go to the sign-in page and come back after. */
+async function requireMe({ request }: LoaderFunctionArgs) {
+  const me = await queryClient.ensureQueryData(authQueries.me());
+  if (!me) {
+    const url = new URL(request.url);
+    throw redirect(`/sign-in?returnTo=${encodeURIComponent(url.pathname + url.search)}`);
+  }
+  return null;
+}
+
+const page = (load: () => Promise<{ default: React.ComponentType; loader?: (a: LoaderFunctionArgs) => unknown }>) => async () => {
+  const m = await load();
+  return { Component: m.default, loader: m.loader };
+};
+
+export const router = createBrowserRouter([
+  { path: '/sign-in', lazy: page(() => import('@/app/routes/sign-in')), errorElement: <RouteError /> },
+  {
+    path: '/',
+    loader: requireMe,
+    element: <AppShell />,
+    errorElement: <RouteError />,
+    children: [
+      { index: true, loader: () => redirect('/lines') },
+      { path: 'lines', lazy: page(() => import('@/app/routes/lines')) },
+      { path: 'lines/:lineNumber', lazy: page(() => import('@/app/routes/line-detail')) },
+      { path: 'imports/new', lazy: page(() => import('@/app/routes/import-new')) },
+      { path: 'imports/:id', lazy: page(() => import('@/app/routes/import-detail')) },
+      { path: 'calculator', lazy: page(() => import('@/app/routes/calculator')) },
+      { path: 'admin/people', lazy: page(() => import('@/app/routes/admin-people')) },
+      { path: '*', lazy: page(() => import('@/app/routes/not-found')) },
+    ],
+  },
+]);

@@ -1,0 +1,20 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const here = (p: string) => fileURLToPath(new URL(p, import.meta.url));
+
+// The dev server proxies the API and sign-in routes to the Express process started by `npm run dev`.
+const apiTarget = process.env.LW_DEV_API ?? 'http://127.0.0.1:5180';
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  resolve: { alias: { '@': here('./src'), '@shared': here('./shared') } },
+  build: { outDir: 'dist', emptyOutDir: true, sourcemap: false },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    proxy: { '/api': apiTarget, '/auth': apiTarget },
+  },
+});

@@ -1,0 +1,26 @@
+import { Worker } from 'bullmq';
+import IORedis from 'ioredis';
+import { config } from '@server/config';
+import { logger } from '@server/logger';
+import { QUEUES } from '@shared/queues';
+import { processImport } from './processors/line-import';
+import { processMail } from './processors/mail';
+
+/** Starts every worker of this process; tests start the same set in-process. */
+export function startWorkers() {
+  const connection = new IORedis(config.redisUrl, { maxRetriesPerRequest: null });
+  const workers = [
+    new Worker(QUEUES.imports, processImport, { connection, concurrency: 1 }),
+    new Worker(QUEUES.mail, processMail, { connection, concurrency: 4 }),
+  ];
+  for (const w of workers) {
+    w.on('failed', (job, err) => logger.error({ err, queue: w.name, jobId: job?.id }, 'job failed'));
+  }
+  return {
+    workers,
+    async close() {
+      await Promise.all(workers.map((w) => w.close()));
+      await connection.quit().catch(() => undefined);
+    },
+  };
+}
