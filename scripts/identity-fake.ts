@@ -1,3 +1,4 @@
+import { generateKeyPairSync } from 'node:crypto';
 import { createServer, type Server } from 'node:http';
 import express from 'express';
 import Provider from 'oidc-provider';
@@ -57,6 +58,8 @@ function buildProvider(opts: IdentityFakeOptions): Provider {
     features: { devInteractions: { enabled: false }, rpInitiatedLogout: { enabled: true } },
     interactions: { url: (_ctx, interaction) => `/interaction/${interaction.uid}` },
     cookies: { keys: ['linewright-identity-fake-key'] },
+    // A fresh signing key each start: the fake keeps nothing, so nothing needs to verify old tokens.
+    jwks: { keys: [{ ...generateKeyPairSync('rsa', { modulusLength: 2048 }).privateKey.export({ format: 'jwk' }), use: 'sig', alg: 'RS256', kid: 'fake-1' }] },
     ttl: { Session: 12 * 3600, Interaction: 3600, Grant: 12 * 3600, AccessToken: 3600, IdToken: 3600, AuthorizationCode: 120 },
     async findAccount(_ctx, id) {
       const account = DEMO_ACCOUNTS.find((a) => a.username === id);
