@@ -1,9 +1,10 @@
 import { SequelizeStorage, Umzug } from 'umzug';
 import { sequelize } from '@server/db/sequelize';
 import * as createRegister from '@server/db/migrations/20261202000100-create-register';
+import * as lineSearchIndex from '@server/db/migrations/20261202000200-line-search-index';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
-const migrations = [createRegister];
+const migrations = [createRegister, lineSearchIndex];
 
 export function migrator() {
   return new Umzug({

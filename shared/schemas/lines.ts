@@ -72,6 +72,15 @@ export const lineListQuerySchema = z.object({
 });
 export type LineListQuery = z.infer<typeof lineListQuerySchema>;
 
+/**
+ * Query of the register's CSV export: the list's sort, filters and search, no paging.
+ * `withStatus=1` adds a `status` column after the import columns (the importer refuses it).
+ */
+export const lineExportQuerySchema = lineListQuerySchema.omit({ page: true, pageSize: true }).extend({
+  withStatus: z.stringbool().default(false),
+});
+export type LineExportQuery = z.infer<typeof lineExportQuerySchema>;
+
 export const lineListResponseSchema = z.object({
   rows: z.array(lineSchema),
   total: z.number(),

@@ -1,0 +1,69 @@
+import Papa from 'papaparse';
+import { QueryTypes } from 'sequelize';
+import { sequelize } from '@server/db/sequelize';
+import { lineOrder, lineWhere, type LineRow } from '@server/services/line-service';
+import type { LineExportQuery } from '@shared/schemas/lines';
+
+/** The columns the line importer reads, in its order: an export re-imports unchanged. */
+export const LINE_IMPORT_COLUMNS = [
+  'line_number', 'area', 'service', 'material', 'schedule', 'nominal_size',
+  'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes',
+] as const;
+
+export const EXPORT_BATCH = 5000;
+
+/**
+ * A text cell starting with one of these is taken for a formula by spreadsheets; papaparse
+ * then writes it quoted with a leading apostrophe ('=HYPERLINK(…) stays text). Papaparse's own
+ * `escapeFormulae: true` is /^[=+\-@\t\r].*$/, which lacks LF and, since `.` stops at a line
+ * break, misses "=1+1\nx" altogether; NUL is added as STACK.md asks. Numbers are never escaped
+ * (papaparse skips number cells), so a design temperature of -20 leaves as -20; the pressure
+ * check keeps design pressures ≥ 0. A text cell such as a note "-see drawing" does gain the
+ * apostrophe: that is the price of not running it.
+ */
+export const FORMULA_LEAD = /^[=+\-@\t\r\n\0]/;
+
+const UNPARSE = { delimiter: ',', newline: '\r\n', escapeFormulae: FORMULA_LEAD, header: false } as const;
+
+/** The register's schedule column as the importer reads it: "40", "80" or "SDR 21". */
+function scheduleCell(row: LineRow): string {
+  if (row.schedule) return row.schedule;
+  return row.sdr === null ? '' : `SDR ${row.sdr}`;
+}
+
+function toCells(row: LineRow, withStatus: boolean): (string | number)[] {
+  const cells: (string | number)[] = [
+    row.line_number, row.area, row.service, row.material, scheduleCell(row), row.nominal_size,
+    row.design_pressure_psi, row.design_temperature_f, row.drawing_ref ?? '', row.notes ?? '',
+  ];
+  return withStatus ? [...cells, row.status] : cells;
+}
+
+export function exportFilename(now: Date): string {
+  return `line-register-${now.toISOString().slice(0, 10)}.csv`;
+}
+
+/**
+ * The register as CSV text in pieces: the header, then one piece per 5,000 lines read from a
+ * server-side cursor, so 100,000 lines never sit in memory at once and all come from one
+ * snapshot. Stopping early (the download was cancelled) closes the cursor's transaction.
+ */
+export async function* lineRegisterCsv(q: LineExportQuery): AsyncGenerator<string> {
+  const fields = q.withStatus ? [...LINE_IMPORT_COLUMNS, 'status'] : [...LINE_IMPORT_COLUMNS];
+  const where = lineWhere(q);
+  const transaction = await sequelize.transaction();
+  try {
+    await sequelize.query(`declare line_export no scroll cursor for select l.* from lines l ${where.sql} order by ${lineOrder(q)}`, {
+      bind: where.bind,
+      transaction,
+    });
+    yield Papa.unparse([fields], UNPARSE) + '\r\n';
+    for (;;) {
+      const rows = await sequelize.query<LineRow>(`fetch ${EXPORT_BATCH} from line_export`, { type: QueryTypes.SELECT, transaction });
+      if (rows.length === 0) break;
+      yield Papa.unparse(rows.map((r) => toCells(r, q.withStatus)), UNPARSE) + '\r\n';
+    }
+  } finally {
+    await transaction.rollback(); // read only: nothing to keep, and it closes the cursor
+  }
+}
