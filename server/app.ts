@@ -50,7 +50,7 @@ export function createApp() {
   const dist = path.resolve(config.clientDist);
   if (existsSync(path.join(dist, 'index.html'))) {
     app.use(express.static(dist, { index: false, maxAge: '1h' }));
-    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(dist, 'index.html')));
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: dist }));
   }
   app.use(notFound);
   app.use(errorHandler);

@@ -28,13 +28,14 @@ export const requireSignIn: RequestHandler = async (req, res, next) => {
   next();
 };
 
-const describe = (roles: readonly Role[]) => roles.map((r) => ROLE_LABELS[r].toLowerCase()).join(' or ');
+const describe = (roles: readonly Role[], joiner = ' or ') => roles.map((r) => ROLE_LABELS[r].toLowerCase()).join(joiner);
+const withArticle = (words: string) => `${/^[aeiou]/.test(words) ? 'an' : 'a'} ${words}`;
 
 /** Allows the request when the person holds any of `roles`; otherwise 403 naming who may. */
 export function requireRole(...roles: Role[]): RequestHandler {
   return (_req, res, next) => {
     if (!res.locals.me.roles.some((r) => roles.includes(r))) {
-      throw AppError.forbidden(`Only a ${describe(roles)} may do this; your roles are ${describe(res.locals.me.roles) || 'none'}.`);
+      throw AppError.forbidden(`Only ${withArticle(describe(roles))} may do this; your roles are ${describe(res.locals.me.roles, ' and ') || 'none'}.`);
     }
     next();
   };
