@@ -1,8 +1,8 @@
-import nodemailer from 'nodemailer';
+import nodemailer, { type Transporter } from 'nodemailer';
 import { config } from '@server/config';
 import type { MailJob } from '@shared/queues';
 
-let transport: nodemailer.Transporter | null = null;
+let transport: Transporter | null = null;
 
 export async function sendMail(mail: MailJob): Promise<void> {
   transport ??= nodemailer.createTransport(config.smtpUrl);

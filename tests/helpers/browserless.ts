@@ -73,7 +73,7 @@ export class Browserless {
 
   async upload<T = any>(path: string, filename: string, content: string | Buffer, field = 'file') {
     const form = new FormData();
-    form.append(field, new Blob([content]), filename);
+    form.append(field, new Blob([typeof content === 'string' ? content : new Uint8Array(content)]), filename);
     const res = await this.raw(path, { method: 'POST', body: form });
     const text = await res.text();
     return { status: res.status, body: (text ? JSON.parse(text) : null) as T };
