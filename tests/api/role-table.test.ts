@@ -1,0 +1,124 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '@server/app';
+import { Person } from '@server/db/models/person';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { ROLE_LABELS, ROLES, type Role } from '@shared/schemas/roles';
+import { startTestApp } from '../helpers/app';
+import { Browserless, signedIn } from '../helpers/browserless';
+import { listRoutes } from '../helpers/app-routes';
+
+/**
+ * Every route the app has, and who may call it. A route added anywhere without a row here fails
+ * the completeness check below, and so does a row whose route is gone.
+ *
+ * `route` is the method and path as Express has it; `sample` the URL called (params filled in
+ * with values that need no data: a 404 for an allowed role is fine, it is "not 401/403");
+ * `body` is sent to writes and is chosen to fail validation harmlessly, so nothing is created.
+ * `public` routes answer without a session; `endsSession` rows get a fresh sign-in of their own.
+ */
+interface Row {
+  route: string;
+  may: readonly Role[] | 'public';
+  sample?: string;
+  body?: unknown;
+  endsSession?: boolean;
+}
+
+const EVERYONE = ROLES;
+const NO_ID = randomUUID();
+
+const TABLE: Row[] = [
+  { route: 'GET /api/health', may: 'public' },
+  { route: 'GET /auth/login', may: 'public' },
+  { route: 'GET /auth/callback', may: 'public' }, // without a sign-in under way it answers 400
+  { route: 'POST /auth/logout', may: 'public', endsSession: true }, // signing out without a session is harmless
+  { route: 'GET /api/me', may: EVERYONE },
+  { route: 'GET /api/people', may: ['admin'] },
+  { route: 'PUT /api/people/:id/roles', may: ['admin'], sample: `/api/people/${NO_ID}/roles`, body: { roles: ['not-a-role'] } },
+  { route: 'GET /api/lines', may: EVERYONE },
+  { route: 'GET /api/lines/export.csv', may: EVERYONE },
+  { route: 'GET /api/lines/:lineNumber', may: EVERYONE, sample: '/api/lines/RT-NO-SUCH-LINE' },
+  { route: 'POST /api/line-imports', may: ['planner', 'admin'], body: {} }, // no file: 400
+  { route: 'GET /api/line-imports/:id', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}` },
+  { route: 'GET /api/line-imports/:id/rows', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}/rows` },
+  { route: 'POST /api/line-imports/:id/confirm', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}/confirm`, body: {} },
+  { route: 'POST /api/calc/joint', may: EVERYONE, body: {} }, // an empty joint: 400
+  { route: 'GET /api/plant-settings', may: EVERYONE },
+  { route: 'PUT /api/plant-settings', may: ['admin'], body: { testCap: 'not-a-cap' } }, // 400, nothing changes
+];
+
+/** Served by the app but not API routes: the client's pages, present when a build is there. */
+const NOT_API = new Set(['GET /{*splat}']);
+
+const methodOf = (row: Row) => row.route.split(' ')[0];
+const urlOf = (row: Row) => row.sample ?? row.route.split(' ')[1];
+const call = (b: Browserless, row: Row) => b.json(methodOf(row), urlOf(row), methodOf(row) === 'GET' ? undefined : (row.body ?? {}));
+const label = (r: Role) => ROLE_LABELS[r].toLowerCase();
+
+let stop: () => Promise<void>;
+const sessions = new Map<Role, Browserless>();
+
+beforeAll(async () => {
+  stop = await startTestApp();
+  for (const role of ROLES) {
+    const b = await signedIn(role);
+    // Each demo account holds exactly its directory role here, whatever another test granted or withdrew.
+    const me = await b.get('/api/me');
+    await Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { id: me.body.id } });
+    sessions.set(role, b);
+  }
+});
+afterAll(() => stop());
+
+describe('the role table lists every route, and only routes that exist', () => {
+  const routes = listRoutes(createApp()).filter((r) => !NOT_API.has(r));
+  const listed = new Set(TABLE.map((row) => row.route));
+
+  it('finds the routes it knows are there (the walk of the router stack works)', () => {
+    expect(routes).toEqual(expect.arrayContaining(['GET /api/health', 'GET /api/me', 'PUT /api/people/:id/roles', 'POST /auth/logout']));
+  });
+
+  it('every route the app has is in the table', () => {
+    const missing = routes.filter((r) => !listed.has(r));
+    expect(missing, `routes without a row in tests/api/role-table.test.ts: ${missing.join(', ')}`).toEqual([]);
+  });
+
+  it('every row in the table is a route the app has', () => {
+    const gone = [...listed].filter((r) => !routes.includes(r));
+    expect(gone, `rows whose route does not exist: ${gone.join(', ')}`).toEqual([]);
+  });
+});
+
+describe('without a session', () => {
+  for (const row of TABLE) {
+    if (row.may === 'public') {
+      it(`${row.route} answers without a sign-in`, async () => {
+        expect([401, 403]).not.toContain((await call(new Browserless(), row)).status);
+      });
+    } else {
+      it(`${row.route} answers 401 in the one error shape`, async () => {
+        const res = await call(new Browserless(), row);
+        expect(res.status).toBe(401);
+        expect(res.body).toEqual({ error: { code: 'unauthenticated', message: 'Sign in to continue.' } });
+      });
+    }
+  }
+});
+
+describe.each(TABLE)('$route', (row) => {
+  it.each(ROLES)('as %s', async (role) => {
+    const b = row.endsSession ? await signedIn(role) : sessions.get(role)!;
+    const res = await call(b, row);
+    if (row.may === 'public' || row.may.includes(role)) {
+      expect([401, 403], `${role} should be let through (got ${res.status} ${JSON.stringify(res.body)})`).not.toContain(res.status);
+      return;
+    }
+    expect(res.status, `${role} should be refused`).toBe(403);
+    expect(apiErrorSchema.strict().parse(res.body).error.code).toBe('forbidden');
+    const message: string = res.body.error.message;
+    expect(message).toMatch(/^Only an? .+ may do this/);
+    for (const allowed of row.may) expect(message).toContain(label(allowed));
+    expect(message).toContain(`your roles are ${label(role)}`);
+  });
+});

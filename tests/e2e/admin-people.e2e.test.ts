@@ -1,0 +1,84 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { config } from '@server/config';
+import { Person } from '@server/db/models/person';
+import { startTestApp } from '../helpers/app';
+import { APP, signedIn } from '../helpers/browserless';
+import { launchChromium, signInInBrowser, VIEWPORTS } from '../helpers/chromium';
+
+let stop: () => Promise<void>;
+let browser: Browser;
+let context: BrowserContext | undefined;
+let supervisorId: string;
+
+const resetSupervisor = () => Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { id: supervisorId } });
+
+beforeAll(async () => {
+  if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
+  stop = await startTestApp();
+  browser = await launchChromium();
+  // The person the admin will grant a role to must have signed in once to be listed.
+  supervisorId = (await (await signedIn('supervisor')).get('/api/me')).body.id;
+  await resetSupervisor();
+});
+afterEach(async () => {
+  await context?.close();
+  context = undefined;
+});
+afterAll(async () => {
+  await resetSupervisor();
+  await browser?.close();
+  await stop?.();
+});
+
+async function pageAs(username: string, pagePath: string): Promise<Page> {
+  context = await browser.newContext({ viewport: VIEWPORTS.tablet });
+  const page = await context.newPage();
+  page.setDefaultTimeout(10_000);
+  await signInInBrowser(page, APP, username, pagePath);
+  return page;
+}
+
+describe('People & roles in the browser', () => {
+  it('an admin grants the pipefitter role to the supervisor and sees it saved', async () => {
+    const page = await pageAs('admin', '/admin/people');
+    await page.getByRole('heading', { name: 'People & roles' }).waitFor();
+    const row = page.locator('tbody tr').filter({ hasText: 'Rafe Adeyemi' });
+    const fitter = row.getByRole('checkbox', { name: 'Pipefitter: Rafe Adeyemi' });
+    expect(await fitter.isChecked()).toBe(false);
+
+    await fitter.check();
+    await row.getByText('granted here').waitFor();
+    await row.getByRole('button', { name: 'Save' }).click();
+    await row.getByRole('status').filter({ hasText: 'Saved' }).waitFor();
+
+    expect(await Person.findByPk(supervisorId)).toMatchObject({ rolesGranted: ['fitter'], rolesWithdrawn: [] });
+    await page.reload();
+    await page.getByRole('checkbox', { name: 'Pipefitter: Rafe Adeyemi' }).waitFor();
+    expect(await page.getByRole('checkbox', { name: 'Pipefitter: Rafe Adeyemi' }).isChecked()).toBe(true);
+  });
+
+  it('an admin who unticks their own admin role is told in place why it cannot be saved', async () => {
+    const page = await pageAs('admin', '/admin/people');
+    const row = page.locator('tbody tr').filter({ hasText: 'Kit Morrow' });
+    await row.getByRole('checkbox', { name: 'Administrator: Kit Morrow' }).uncheck();
+    await row.getByText('withdrawn here').waitFor();
+    await row.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('alert').filter({ hasText: 'You cannot withdraw your own admin role' }).waitFor();
+    await page.getByRole('button', { name: 'Undo' }).click();
+    expect(await page.getByRole('checkbox', { name: 'Administrator: Kit Morrow' }).isChecked()).toBe(true);
+  });
+
+  it('a planner does not see People & roles in the menu, and opening it directly says who may', async () => {
+    const page = await pageAs('planner', '/lines');
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    await nav.getByRole('link', { name: 'Line register' }).waitFor();
+    expect(await nav.getByRole('link', { name: 'People & roles' }).count()).toBe(0);
+
+    await page.goto(`${APP}/admin/people`);
+    await page.getByRole('alert').filter({ hasText: 'Only an administrator may do this' }).waitFor();
+    expect(await page.getByRole('table').count()).toBe(0);
+  });
+});
