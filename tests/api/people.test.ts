@@ -9,16 +9,19 @@ let stop: () => Promise<void>;
 beforeAll(async () => (stop = await startTestApp()));
 afterAll(() => stop());
 
-// The demo accounts are shared with other test files: put back whatever a test granted or withdrew.
+// The demo accounts are shared with other test files: each test starts them with only their
+// directory roles, and puts back whatever it granted or withdrew.
 const touched = new Set<string>();
+const directoryRolesOnly = (ids: string[]) => Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { id: ids } });
 afterEach(async () => {
-  await Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { id: [...touched] } });
+  await directoryRolesOnly([...touched]);
   touched.clear();
 });
 
 async function signedInAs(username: string): Promise<{ b: Browserless; id: string }> {
   const b = await signedIn(username);
   const id: string = (await b.get('/api/me')).body.id;
+  await directoryRolesOnly([id]);
   touched.add(id);
   return { b, id };
 }

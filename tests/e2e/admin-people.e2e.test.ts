@@ -6,6 +6,7 @@ import { config } from '@server/config';
 import { Person } from '@server/db/models/person';
 import { startTestApp } from '../helpers/app';
 import { APP, signedIn } from '../helpers/browserless';
+import { DEMO_ACCOUNTS } from '../../scripts/demo-accounts';
 import { launchChromium, signInInBrowser, VIEWPORTS } from '../helpers/chromium';
 
 let stop: () => Promise<void>;
@@ -13,7 +14,9 @@ let browser: Browser;
 let context: BrowserContext | undefined;
 let supervisorId: string;
 
-const resetSupervisor = () => Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { id: supervisorId } });
+// The demo accounts are shared with other test files: start and end with their directory roles only.
+const SHOWN = DEMO_ACCOUNTS.filter((a) => ['admin', 'planner', 'supervisor'].includes(a.username)).map((a) => a.email);
+const directoryRolesOnly = () => Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { email: SHOWN } });
 
 beforeAll(async () => {
   if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
@@ -21,14 +24,14 @@ beforeAll(async () => {
   browser = await launchChromium();
   // The person the admin will grant a role to must have signed in once to be listed.
   supervisorId = (await (await signedIn('supervisor')).get('/api/me')).body.id;
-  await resetSupervisor();
+  await directoryRolesOnly();
 });
 afterEach(async () => {
   await context?.close();
   context = undefined;
 });
 afterAll(async () => {
-  await resetSupervisor();
+  await directoryRolesOnly();
   await browser?.close();
   await stop?.();
 });
