@@ -1,4 +1,4 @@
-import { createBrowserRouter, redirect, type LoaderFunctionArgs } from 'react-router-dom';
+import { createBrowserRouter, redirect, type LoaderFunctionArgs, type ShouldRevalidateFunction } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { authQueries } from '@/features/auth/api';
 import { AppShell } from '@/components/layouts/app-shell';
@@ -14,9 +14,9 @@ async function requireMe({ request }: LoaderFunctionArgs) {
   return null;
 }
 
-const page = (load: () => Promise<{ default: React.ComponentType; loader?: (a: LoaderFunctionArgs) => unknown }>) => async () => {
+const page = (load: () => Promise<{ default: React.ComponentType; loader?: (a: LoaderFunctionArgs) => unknown; shouldRevalidate?: ShouldRevalidateFunction }>) => async () => {
   const m = await load();
-  return { Component: m.default, loader: m.loader };
+  return { Component: m.default, loader: m.loader, shouldRevalidate: m.shouldRevalidate };
 };
 
 export const router = createBrowserRouter([

@@ -1,3 +1,78 @@
-export default function Page() {
-  return <p>Coming soon.</p>;
+import { useQuery } from '@tanstack/react-query';
+import { Link, useLocation, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { queryClient } from '@/lib/query-client';
+import { ApiRequestError } from '@/lib/api-client';
+import { lineQueries } from '@/features/lines/api';
+import { LineStatusMark } from '@/features/lines/components/line-status';
+import { ChemicalServiceCaution, LineFacts } from '@/features/lines/components/line-facts';
+import { IsolationPointsTable } from '@/features/lines/components/isolation-points-table';
+import { Card, PageHeader } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+
+export async function loader({ params }: LoaderFunctionArgs) {
+  try {
+    await queryClient.ensureQueryData(lineQueries.detail(params.lineNumber!));
+  } catch (err) {
+    // A line that is not in the register is shown inside the page, not as a broken page.
+    if (!(err instanceof ApiRequestError && err.status === 404)) throw err;
+  }
+  return null;
+}
+
+export default function LineDetailPage() {
+  const { lineNumber } = useParams() as { lineNumber: string };
+  const { state } = useLocation() as { state?: { registerSearch?: string } };
+  const back = `/lines${state?.registerSearch ?? ''}`;
+  const { data: line, error, isPending } = useQuery(lineQueries.detail(lineNumber));
+
+  const backLink = (
+    <Link to={back} className="inline-flex min-h-11 items-center font-medium text-tide hover:underline">
+      ← Line register
+    </Link>
+  );
+  if (error) {
+    return (
+      <div className="max-w-2xl space-y-3">
+        {backLink}
+        <Notice tone="refusal" title={error instanceof ApiRequestError && error.status === 404 ? `Line ${lineNumber} is not in the register` : 'This line could not be loaded'}>
+          {error.message}
+        </Notice>
+      </div>
+    );
+  }
+  if (isPending) return <p className="text-ink-soft">Loading line {lineNumber}…</p>;
+
+  return (
+    <>
+      {backLink}
+      <PageHeader
+        title={line.lineNumber}
+        subtitle={`${line.service} · ${line.area}`}
+        actions={
+          <span className="inline-flex min-h-11 items-center rounded-lg border border-ink/10 bg-paper-raised px-3">
+            <LineStatusMark status={line.status} />
+          </span>
+        }
+      />
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+        <div className="space-y-4">
+          <Card title="Line">
+            <LineFacts line={line} />
+          </Card>
+          <Card title={`Isolation points (${line.isolationPoints.length})`}>
+            <IsolationPointsTable points={line.isolationPoints} />
+          </Card>
+        </div>
+        <div className="space-y-4">
+          <ChemicalServiceCaution service={line.service} />
+          <Card title="Notes">
+            {line.notes ? <p className="whitespace-pre-line text-sm">{line.notes}</p> : <p className="text-sm text-ink-faint">No notes.</p>}
+          </Card>
+          <Card title="Work orders">
+            <p className="text-sm text-ink-soft">No work orders on this line yet. Repairs and tie-ins planned on it will be listed here.</p>
+          </Card>
+        </div>
+      </div>
+    </>
+  );
 }

@@ -1,3 +1,125 @@
-export default function Page() {
-  return <p>Coming soon.</p>;
+import { useMemo } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { Link, useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
+import { queryClient } from '@/lib/query-client';
+import { authQueries, hasRole } from '@/features/auth/api';
+import { lineExportHref, lineQueries } from '@/features/lines/api';
+import { filtersFromSearch, filtersToSearch, hasActiveFilters, type LineFilters } from '@/features/lines/filters';
+import { LinesTable } from '@/features/lines/components/lines-table';
+import { LineFilterBar } from '@/features/lines/components/line-filters';
+import { PageHeader } from '@/components/ui/card';
+import { Notice } from '@/components/ui/notice';
+import { Pager } from '@/components/ui/pager';
+
+export async function loader({ request }: LoaderFunctionArgs) {
+  await queryClient.ensureQueryData(lineQueries.list(filtersFromSearch(new URL(request.url).searchParams)));
+  return null;
+}
+
+/** Paging, sorting and filtering on this page are fetched by the table's query, which keeps the old page on screen meanwhile. */
+export const shouldRevalidate = ({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) =>
+  currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
+
+const PAGE_SIZES = [25, 50, 100];
+const linkButton = 'inline-flex min-h-11 items-center justify-center gap-2 rounded-lg px-4 py-2 text-sm font-semibold';
+
+export default function LinesPage() {
+  const [params, setParams] = useSearchParams();
+  const filters = useMemo(() => filtersFromSearch(params), [params]);
+  const { data, error, isPlaceholderData, isFetching } = useQuery(lineQueries.list(filters));
+  const { data: me } = useQuery(authQueries.me());
+  const mayImport = hasRole(me, 'planner', 'admin');
+
+  /** Any change other than paging starts again at page 1. */
+  const update = (patch: Partial<LineFilters>, replace = false) => {
+    const next = { ...filters, ...patch, page: patch.page ?? 1 };
+    setParams(filtersToSearch(next), { replace });
+  };
+  const onSort = (sort: LineFilters['sort']) => update({ sort, dir: filters.sort === sort && filters.dir === 'asc' ? 'desc' : 'asc' });
+
+  return (
+    <>
+      <PageHeader
+        title="Line register"
+        subtitle={data ? `${data.total} ${data.total === 1 ? 'line' : 'lines'}${hasActiveFilters(filters) ? ' match' : ' in the plant'}` : 'Every process line in the plant'}
+        actions={
+          <>
+            <a href={lineExportHref(filters)} download className={`${linkButton} border border-ink/20 bg-paper-raised text-ink hover:bg-paper-sunk`}>
+              Export CSV
+            </a>
+            {mayImport && (
+              <Link to="/imports/new" className={`${linkButton} bg-tide text-white hover:bg-tide-dark`}>
+                Import lines
+              </Link>
+            )}
+          </>
+        }
+      />
+      <LineFilterBar filters={filters} facets={data?.facets} onChange={update} />
+      {error && !data && (
+        <Notice tone="refusal" title="The register could not be loaded">
+          {error.message}
+        </Notice>
+      )}
+      {data && data.total === 0 && <EmptyRegister filtered={hasActiveFilters(filters)} mayImport={mayImport} onClear={() => setParams(new URLSearchParams())} />}
+      {data && data.total > 0 && data.rows.length === 0 && (
+        <Notice title="This page is past the end of the list">
+          <button type="button" className="mt-1 min-h-11 font-medium text-tide underline" onClick={() => update({ page: 1 })}>
+            Go to the first page
+          </button>
+        </Notice>
+      )}
+      {data && data.rows.length > 0 && (
+        <>
+          <LinesTable rows={data.rows} filters={filters} onSort={onSort} dimmed={isPlaceholderData} />
+          <div className="mt-3 flex flex-wrap items-center justify-between gap-3">
+            <Pager page={filters.page} pageSize={filters.pageSize} total={data.total} onPage={(page) => (update({ page }), window.scrollTo({ top: 0 }))} busy={isFetching} />
+            <label className="flex items-center gap-2 text-sm text-ink-soft">
+              Rows per page
+              <select
+                value={filters.pageSize}
+                onChange={(e) => update({ pageSize: Number(e.target.value) })}
+                className="min-h-11 rounded-lg border border-ink/25 bg-paper-raised px-2"
+              >
+                {PAGE_SIZES.map((n) => (
+                  <option key={n}>{n}</option>
+                ))}
+              </select>
+            </label>
+          </div>
+        </>
+      )}
+    </>
+  );
+}
+
+function EmptyRegister({ filtered, mayImport, onClear }: { filtered: boolean; mayImport: boolean; onClear: () => void }) {
+  return (
+    <div className="rounded-xl border border-dashed border-ink/25 bg-paper-raised px-6 py-12 text-center">
+      <svg aria-hidden width="56" height="24" viewBox="0 0 56 24" className="mx-auto mb-3 text-ink-faint">
+        <path d="M2 8h18v8H2zM36 8h18v8H36z" fill="none" stroke="currentColor" strokeWidth="2" />
+        <path d="M20 12h4M32 12h4" stroke="currentColor" strokeWidth="2" strokeDasharray="2 2" />
+      </svg>
+      {filtered ? (
+        <>
+          <p className="font-semibold">No line matches these filters</p>
+          <button type="button" onClick={onClear} className="mt-2 min-h-11 font-medium text-tide underline">
+            Clear the filters
+          </button>
+        </>
+      ) : (
+        <>
+          <p className="font-semibold">The register has no lines yet</p>
+          <p className="mt-1 text-ink-soft">
+            {mayImport ? 'Import the plant’s line list from a CSV file to start.' : 'A planner imports the plant’s line list; ask them to load it.'}
+          </p>
+          {mayImport && (
+            <Link to="/imports/new" className={`${linkButton} mt-4 bg-tide text-white hover:bg-tide-dark`}>
+              Import lines
+            </Link>
+          )}
+        </>
+      )}
+    </div>
+  );
 }

@@ -1,0 +1,25 @@
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import { api, toSearch } from '@/lib/api-client';
+import type { LineDetailDto, LineListResponse } from '@shared/schemas/lines';
+import { exportFilters, type LineFilters } from '@/features/lines/filters';
+
+export const lineQueries = {
+  all: () => ['lines'] as const,
+  lists: () => [...lineQueries.all(), 'list'] as const,
+  list: (filters: LineFilters) =>
+    queryOptions({
+      queryKey: [...lineQueries.lists(), filters],
+      queryFn: () => api.get<LineListResponse>(`/api/lines${toSearch(filters)}`),
+      // The previous page stays on screen while the next loads, so paging and sorting do not flash.
+      placeholderData: keepPreviousData,
+    }),
+  details: () => [...lineQueries.all(), 'detail'] as const,
+  detail: (lineNumber: string) =>
+    queryOptions({
+      queryKey: [...lineQueries.details(), lineNumber],
+      queryFn: () => api.get<LineDetailDto>(`/api/lines/${encodeURIComponent(lineNumber)}`),
+    }),
+};
+
+/** A plain link to the CSV export of what the table currently shows (every page). */
+export const lineExportHref = (filters: LineFilters) => `/api/lines/export.csv${toSearch(exportFilters(filters))}`;
