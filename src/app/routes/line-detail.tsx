@@ -34,9 +34,15 @@ export default function LineDetailPage() {
     return (
       <div className="max-w-2xl space-y-3">
         {backLink}
-        <Notice tone="refusal" title={error instanceof ApiRequestError && error.status === 404 ? `Line ${lineNumber} is not in the register` : 'This line could not be loaded'}>
-          {error.message}
-        </Notice>
+        {error instanceof ApiRequestError && error.status === 404 ? (
+          <Notice tone="refusal" title={error.message}>
+            Check the line number, or find the line by searching the register.
+          </Notice>
+        ) : (
+          <Notice tone="refusal" title="This line could not be loaded">
+            {error.message}
+          </Notice>
+        )}
       </div>
     );
   }

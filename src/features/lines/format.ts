@@ -21,5 +21,5 @@ export const formatDate = (iso: string) => new Date(iso).toLocaleDateString('en-
  * Whether a service name reads like a chemical rather than water or air: a deliberately wide net,
  * because showing the chemical caution on a water line costs less than missing it on an acid line.
  */
-const NOT_CHEMICAL = /^(?:(?:potable|process|service|cooling|chilled|fire|raw|city|soft(?:ened)?|filtered|hot|cold|ro|di|deionized|demin(?:eralized)?|ultrapure|upw)\s+)*(?:water|air|drain|vent)s?$/i;
+const NOT_CHEMICAL = /^(?:(?:potable|process|service|cooling|chilled|fire|raw|city|soft(?:ened)?|filtered|hot|cold|ro|di|deionized|demin(?:eralized)?|ultrapure|upw)\s+)*(?:water|air|drain|vent|permeate|condensate)s?$/i;
 export const looksChemical = (service: string) => !NOT_CHEMICAL.test(service.trim());
