@@ -14,6 +14,7 @@ import { peopleRoutes } from '@server/routes/people-routes';
 import { lineRoutes } from '@server/routes/line-routes';
 import { lineImportRoutes } from '@server/routes/line-import-routes';
 import { calcRoutes } from '@server/routes/calc-routes';
+import { plantSettingsRoutes } from '@server/routes/plant-settings-routes';
 import { healthRoutes } from '@server/routes/health-routes';
 
 const PgStore = connectPgSimple(session);
@@ -45,6 +46,7 @@ export function createApp() {
   app.use('/api/lines', lineRoutes);
   app.use('/api/line-imports', lineImportRoutes);
   app.use('/api/calc', calcRoutes);
+  app.use('/api/plant-settings', plantSettingsRoutes);
   app.use('/api', notFound);
 
   const dist = path.resolve(config.clientDist);

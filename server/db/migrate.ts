@@ -2,9 +2,10 @@ import { SequelizeStorage, Umzug } from 'umzug';
 import { sequelize } from '@server/db/sequelize';
 import * as createRegister from '@server/db/migrations/20261202000100-create-register';
 import * as lineSearchIndex from '@server/db/migrations/20261202000200-line-search-index';
+import * as plantSettings from '@server/db/migrations/20261202000300-plant-settings';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
-const migrations = [createRegister, lineSearchIndex];
+const migrations = [createRegister, lineSearchIndex, plantSettings];
 
 export function migrator() {
   return new Umzug({

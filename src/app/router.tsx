@@ -34,6 +34,7 @@ export const router = createBrowserRouter([
       { path: 'imports/:id', lazy: page(() => import('@/app/routes/import-detail')) },
       { path: 'calculator', lazy: page(() => import('@/app/routes/calculator')) },
       { path: 'admin/people', lazy: page(() => import('@/app/routes/admin-people')) },
+      { path: 'admin/plant', lazy: page(() => import('@/app/routes/admin-plant')) },
       { path: '*', lazy: page(() => import('@/app/routes/not-found')) },
     ],
   },

@@ -9,6 +9,7 @@ const NAV: { to: string; label: string; roles?: Role[] }[] = [
   { to: '/imports/new', label: 'Import lines', roles: ['planner', 'admin'] },
   { to: '/calculator', label: 'Joint calculator' },
   { to: '/admin/people', label: 'People & roles', roles: ['admin'] },
+  { to: '/admin/plant', label: 'Plant settings', roles: ['admin'] },
 ];
 
 export function AppShell() {

@@ -1,0 +1,25 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import { sequelize } from '@server/db/sequelize';
+import type { TestCap } from '@shared/schemas/plant-settings';
+
+/** The plant's one settings row (id 1): which published cure schedule and which test cap it uses. */
+export class PlantSetting extends Model<InferAttributes<PlantSetting>, InferCreationAttributes<PlantSetting>> {
+  declare id: CreationOptional<number>;
+  declare cureScheduleId: CreationOptional<string>;
+  declare testCap: CreationOptional<TestCap>;
+  declare updatedById: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+PlantSetting.init(
+  {
+    id: { type: DataTypes.SMALLINT, primaryKey: true, defaultValue: 1 },
+    cureScheduleId: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'A' },
+    testCap: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'rating' },
+    updatedById: { type: DataTypes.UUID },
+    createdAt: DataTypes.DATE,
+    updatedAt: DataTypes.DATE,
+  },
+  { sequelize, tableName: 'plant_settings' },
+);
