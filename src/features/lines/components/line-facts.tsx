@@ -37,7 +37,7 @@ export function ChemicalServiceCaution({ service }: { service: string }) {
   if (!looksChemical(service)) return null;
   const cautions = cautionsFor('chemical-service');
   return (
-    <Notice tone="caution" title={`Chemical service: ${service}`}>
+    <Notice tone="caution" title={`Before opening this line (${service})`}>
       <ul className="mt-1 space-y-1.5">
         {cautions.map((c) => (
           <li key={c.id}>

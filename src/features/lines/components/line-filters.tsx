@@ -53,7 +53,7 @@ export function LineFilterBar({ filters, facets, onChange }: { filters: LineFilt
             type="search"
             value={search}
             onChange={(e) => setSearch(e.target.value)}
-            placeholder="e.g. CW-2 or 104"
+            placeholder="Part of a line number, e.g. SA-00"
             className="min-h-11 w-full rounded-lg border border-ink/25 bg-paper-raised px-3 py-2 text-base focus:border-tide"
           />
         </label>
