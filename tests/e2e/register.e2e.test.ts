@@ -78,6 +78,8 @@ describe('importing lines in the browser', () => {
 
     await page.getByLabel('Find a line number').fill(prefix);
     await page.waitForURL((url) => url.searchParams.get('search') === prefix);
+    // The unfiltered page stays on screen (dimmed) until the search answers: wait for the answer.
+    await page.getByText('3 lines match', { exact: true }).waitFor();
     await page.getByRole('row', { name: `Line ${prefix}-003` }).waitFor();
     const shown = await page.locator('tbody tr').allTextContents();
     expect(shown).toHaveLength(3);
