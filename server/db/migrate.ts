@@ -3,9 +3,10 @@ import { sequelize } from '@server/db/sequelize';
 import * as createRegister from '@server/db/migrations/20261202000100-create-register';
 import * as lineSearchIndex from '@server/db/migrations/20261202000200-line-search-index';
 import * as plantSettings from '@server/db/migrations/20261202000300-plant-settings';
+import * as lineImportPreviewedAt from '@server/db/migrations/20261203000100-line-import-previewed-at';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
-const migrations = [createRegister, lineSearchIndex, plantSettings];
+const migrations = [createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt];
 
 export function migrator() {
   return new Umzug({

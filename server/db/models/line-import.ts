@@ -15,6 +15,7 @@ export class LineImport extends Model<InferAttributes<LineImport>, InferCreation
   declare error: string | null;
   declare createdById: string;
   declare confirmedById: string | null;
+  declare previewedAt: CreationOptional<Date | null>;
   declare appliedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -33,6 +34,7 @@ LineImport.init(
     error: { type: DataTypes.TEXT },
     createdById: { type: DataTypes.UUID, allowNull: false },
     confirmedById: { type: DataTypes.UUID },
+    previewedAt: { type: DataTypes.DATE },
     appliedAt: { type: DataTypes.DATE },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
