@@ -1,0 +1,296 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Op } from 'sequelize';
+import { sequelize } from '@server/db/sequelize';
+import { AuditEntry } from '@server/db/models/audit-entry';
+import { IsolationPoint } from '@server/db/models/isolation-point';
+import { Line } from '@server/db/models/line';
+import { LineImport, LineImportRow } from '@server/db/models/line-import';
+import { importQueue } from '@server/queues';
+import { lineImportSchema } from '@shared/schemas/line-imports';
+import { startTestApp } from '../helpers/app';
+import { signedIn, type Browserless } from '../helpers/browserless';
+import { POINT_HEADER, importRow, lineRow, testPrefix, toCsv, type CsvRow } from '../helpers/import-csv';
+
+let stop: () => Promise<void>;
+let planner: Browserless;
+beforeAll(async () => {
+  stop = await startTestApp();
+  planner = await signedIn('planner');
+});
+afterAll(() => stop());
+
+const upload = (name: string, text: string, as = planner) => as.upload('/api/line-imports', name, text);
+const rowsOf = async (id: string, query = '') => (await planner.get(`/api/line-imports/${id}/rows?pageSize=500${query}`)).body.rows as any[];
+const linesNamed = (p: string) => Line.findAll({ where: { lineNumber: { [Op.startsWith]: p } }, order: [['lineNumber', 'ASC']] });
+
+/** Uploads and confirms a small lines file: the register then holds these rows. */
+async function registerHas(p: string, rows: CsvRow[]) {
+  const up = await upload(`${p}-seed.csv`, toCsv(rows));
+  expect(up.status).toBe(201);
+  const done = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+  expect(done.status).toBe(200);
+  return done.body;
+}
+
+describe('previewing a lines file', () => {
+  it('marks each row new, changed (with the changed fields) or unchanged, and writes nothing to the register', async () => {
+    const p = testPrefix('PREV');
+    await registerHas(p, [lineRow(`${p}-1`), lineRow(`${p}-2`, { notes: 'old note' })]);
+    const res = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`, { design_pressure_psi: '200', notes: 'new note' }), lineRow(`${p}-3`)]));
+
+    expect(res.status).toBe(201);
+    expect(lineImportSchema.parse(res.body)).toMatchObject({ kind: 'lines', filename: `${p}.csv`, status: 'previewed', totalRows: 3, progress: 100, counts: { new: 1, changed: 1, unchanged: 1, rejected: 0 } });
+    const rows = await rowsOf(res.body.id);
+    expect(rows.map((r) => [r.rowNumber, r.key, r.outcome])).toEqual([[2, `${p}-1`, 'unchanged'], [3, `${p}-2`, 'changed'], [4, `${p}-3`, 'new']]);
+    expect(rows[1].changes).toEqual({ designPressurePsi: { from: 150, to: 200 }, notes: { from: 'old note', to: 'new note' } });
+    expect(rows[2].data).toMatchObject({ lineNumber: `${p}-3`, material: 'PVC', schedule: '80', nominalSize: '1-1/2', nominalSizeIn: 1.5, designPressurePsi: 150 });
+    expect((await importRow(res.body.id))?.source).toContain(`${p}-3`);
+    expect(await LineImportRow.count({ where: { importId: res.body.id } })).toBe(3);
+    expect((await linesNamed(p)).map((l) => [l.lineNumber, l.designPressurePsi])).toEqual([[`${p}-1`, 150], [`${p}-2`, 150]]);
+  });
+
+  it('keeps the file name as the planner saved it, accents and all, without any folder', async () => {
+    const p = testPrefix('NAME');
+    const res = await upload(`Régistre ${p}.csv`, toCsv([lineRow(`${p}-1`)]));
+    expect(res.body.filename).toBe(`Régistre ${p}.csv`);
+  });
+
+  it('lists only the rows of one outcome, a page at a time', async () => {
+    const p = testPrefix('PAGE');
+    const res = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`, { material: 'steel' }), lineRow(`${p}-3`), lineRow(`${p}-4`)]));
+    const page = await planner.get(`/api/line-imports/${res.body.id}/rows?outcome=new&page=2&pageSize=2`);
+    expect(page.status).toBe(200);
+    expect(page.body.total).toBe(3);
+    expect(page.body.rows.map((r: any) => r.key)).toEqual([`${p}-4`]);
+    expect((await planner.get(`/api/line-imports/${res.body.id}/rows?outcome=maybe`)).status).toBe(400);
+  });
+
+  it('rejects each kind of bad row with its column and a reason a planner can act on', async () => {
+    const p = testPrefix('BAD');
+    const res = await upload(`${p}.csv`, toCsv([
+      lineRow(`${p}-MAT`, { material: 'HDPE' }),
+      lineRow(`${p}-SIZE`, { nominal_size: '7' }),
+      lineRow(`${p}-UNIT`, { design_pressure_psi: '10 bar' }),
+      lineRow(`${p}-HOT`, { material: 'PVC', design_temperature_f: '150' }),
+      lineRow(`${p}-OK`),
+      lineRow(`${p}-OK`, { area: '200 Caustic & brine' }),
+      lineRow(`${p}-EMPTY`, { service: '' }),
+      lineRow(`${p}-NEG`, { design_pressure_psi: '-5' }),
+      lineRow(`${p}-WORD`, { design_pressure_psi: 'high' }),
+      lineRow(`${p}-SCH`, { schedule: '120' }),
+    ]));
+    expect(res.body.counts).toEqual({ new: 1, changed: 0, unchanged: 0, rejected: 9 });
+    const problems = Object.fromEntries((await rowsOf(res.body.id, '&outcome=rejected')).map((r) => [`${r.key}@${r.rowNumber}`, r.problems]));
+    expect(problems[`${p}-MAT@2`]).toEqual([{ column: 'material', message: '"HDPE" is not a material the register takes (PVC, CPVC or ABS).' }]);
+    expect(problems[`${p}-SIZE@3`]).toEqual([{ column: 'nominal_size', message: expect.stringMatching(/^"7" is not a listed nominal pipe size/) }]);
+    expect(problems[`${p}-UNIT@4`]).toEqual([{ column: 'design_pressure_psi', message: expect.stringMatching(/^"10 bar" is in bar, but this column is in psi/) }]);
+    expect(problems[`${p}-HOT@5`]).toEqual([{ column: 'design_temperature_f', message: expect.stringMatching(/^150 °F is above PVC's maximum service temperature of 140 °F/) }]);
+    expect(problems[`${p}-OK@7`]).toEqual([{ column: 'line_number', message: `Line ${p}-OK is already on row 6 of this file; each may appear only once.` }]);
+    expect(problems[`${p}-EMPTY@8`]).toEqual([{ column: 'service', message: 'Missing value: every row needs a service.' }]);
+    expect(problems[`${p}-NEG@9`]).toEqual([{ column: 'design_pressure_psi', message: 'Pressure must be 0 or more (gauge).' }]);
+    expect(problems[`${p}-WORD@10`]).toEqual([{ column: 'design_pressure_psi', message: '"high" is not a pressure: give a number of psi.' }]);
+    expect(problems[`${p}-SCH@11`]).toEqual([{ column: 'schedule', message: expect.stringMatching(/^"120" is not a schedule the register takes/) }]);
+    const rejected = await rowsOf(res.body.id, '&outcome=rejected');
+    expect(rejected[0].data).toMatchObject({ material: 'HDPE' }); // the cells as the planner wrote them
+  });
+
+  it('reads a header in bar and °C, with a byte-order mark and spreadsheet-style names, and converts to psi and °F', async () => {
+    const p = testPrefix('UNITS');
+    const text = '\uFEFFLine Number,Area,Service,Material,Schedule,Nominal Size,Design Pressure (bar),Design Temperature (°C)\n' +
+      `${p}-1,300 Water treatment,Ferric chloride,CPVC,SDR 21,"2""",10,40\n${p}-2,300 Water treatment,Brine,ABS,Sch 40,3/4 in,6.9 bar,20 C\n`;
+    const res = await upload(`${p}.csv`, text);
+    expect(res.status).toBe(201);
+    expect(res.body.counts).toMatchObject({ new: 2, rejected: 0 });
+    expect((await planner.post(`/api/line-imports/${res.body.id}/confirm`)).status).toBe(200);
+    const [one, two] = await linesNamed(p);
+    expect(one).toMatchObject({ material: 'CPVC', schedule: null, sdr: 21, nominalSize: '2', nominalSizeIn: 2, designPressurePsi: 145, designTemperatureF: 104, drawingRef: null });
+    expect(two).toMatchObject({ material: 'ABS', schedule: '40', nominalSize: '3/4', designPressurePsi: 100.1, designTemperatureF: 68 });
+  });
+
+  it('a cell in °C under a °F header is rejected, naming the column', async () => {
+    const p = testPrefix('TUNIT');
+    const res = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { design_temperature_f: '40 C' })]));
+    const [row] = await rowsOf(res.body.id);
+    expect(row.problems).toEqual([{ column: 'design_temperature_f', message: expect.stringMatching(/^"40 C" is in °C, but this column is in °F/) }]);
+  });
+
+  it('an unknown column refuses the whole file (400) and nothing is stored', async () => {
+    const p = testPrefix('UNK');
+    const res = await upload(`${p}.csv`, toCsv([{ ...lineRow(`${p}-1`), colour: 'grey' }], ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f', 'colour']));
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/^The column "colour" is not one Linewright knows\. A lines file has the columns line_number, area/);
+    expect(await LineImport.count({ where: { filename: `${p}.csv` } })).toBe(0);
+  });
+
+  it('a missing required column, two pressure columns, a header without rows and a non-CSV file are each refused whole', async () => {
+    const p = testPrefix('HDR');
+    const noService = await upload(`${p}.csv`, 'line_number,area,material,schedule,nominal_size,design_pressure_psi,design_temperature_f\nX,A,PVC,40,1,10,70\n');
+    expect(noService.status).toBe(400);
+    expect(noService.body.error.message).toMatch(/^A lines file needs the column service; the file does not have it/);
+    const twice = await upload(`${p}.csv`, 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_pressure_bar,design_temperature_f\n');
+    expect(twice.body.error.message).toBe('The columns "design_pressure_psi" and "design_pressure_bar" both give the design pressure; keep one of them.');
+    const empty = await upload(`${p}.csv`, 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_temperature_f\n\n');
+    expect(empty.body.error.message).toBe('The file has a header but no rows.');
+    const sheet = await upload(`${p}.xlsx`, 'PK\u0003\u0004');
+    expect(sheet.status).toBe(400);
+    expect(sheet.body.error.message).toMatch(/is not a CSV file/);
+    const none = await planner.post('/api/line-imports', {});
+    expect(none.status).toBe(400);
+    expect(none.body.error.message).toMatch(/Choose a CSV file/);
+    expect(await LineImport.count({ where: { filename: { [Op.startsWith]: p } } })).toBe(0);
+  });
+});
+
+describe('who may import', () => {
+  it('a pipefitter and an operations shift lead are refused (403) on every import route', async () => {
+    const p = testPrefix('ROLE');
+    const mine = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`)]));
+    for (const role of ['fitter', 'operations']) {
+      const b = await signedIn(role);
+      const up = await upload(`${p}-${role}.csv`, toCsv([lineRow(`${p}-2`)]), b);
+      expect(up.status, role).toBe(403);
+      expect(up.body.error.message, role).toMatch(/^Only a maintenance planner or administrator may do this/);
+      expect((await b.get(`/api/line-imports/${mine.body.id}`)).status, role).toBe(403);
+      expect((await b.get(`/api/line-imports/${mine.body.id}/rows`)).status, role).toBe(403);
+      expect((await b.post(`/api/line-imports/${mine.body.id}/confirm`)).status, role).toBe(403);
+    }
+    expect((await importRow(mine.body.id))?.status).toBe('previewed');
+    expect(await Line.count({ where: { lineNumber: { [Op.startsWith]: p } } })).toBe(0);
+  });
+
+  it('an administrator may import', async () => {
+    const p = testPrefix('ADMIN');
+    const admin = await signedIn('admin');
+    const res = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`)]), admin);
+    expect(res.status).toBe(201);
+    expect((await admin.post(`/api/line-imports/${res.body.id}/confirm`)).status).toBe(200);
+  });
+});
+
+describe('confirming an import', () => {
+  it('writes the new and changed lines, skips the rejected ones, says so, and records one audit entry', async () => {
+    const p = testPrefix('CONF');
+    await registerHas(p, [lineRow(`${p}-1`)]);
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { nominal_size: '2', drawing: 'MRW-P&ID-104-03' }), lineRow(`${p}-2`, { material: 'CPVC', design_temperature_f: '180' }), lineRow(`${p}-3`, { material: 'wood' })]));
+    const res = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ status: 'applied', progress: 100, counts: { new: 1, changed: 1, unchanged: 0, rejected: 1 } });
+    expect(res.body.appliedAt).toBeTruthy();
+    const lines = await linesNamed(p);
+    expect(lines.map((l) => [l.lineNumber, l.material, l.nominalSize, l.nominalSizeIn, l.drawingRef])).toEqual([
+      [`${p}-1`, 'PVC', '2', 2, 'MRW-P&ID-104-03'],
+      [`${p}-2`, 'CPVC', '1-1/2', 1.5, 'MRW-P&ID-104-02'],
+    ]);
+    const audit = await AuditEntry.findAll({ where: { action: 'line-import-applied', entityId: up.body.id } });
+    expect(audit).toHaveLength(1);
+    expect(audit[0]!.after).toEqual({ kind: 'lines', filename: `${p}.csv`, new: 1, changed: 1, unchanged: 0, skipped: 1 });
+  });
+
+  it('leaves drawing and notes alone when the file has no such columns', async () => {
+    const p = testPrefix('KEEP');
+    await registerHas(p, [lineRow(`${p}-1`, { notes: 'keep me' })]);
+    const header = ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f'];
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { design_pressure_psi: '120' })], header));
+    expect((await rowsOf(up.body.id))[0].changes).toEqual({ designPressurePsi: { from: 150, to: 120 } });
+    await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(await linesNamed(p)).toMatchObject([{ designPressurePsi: 120, notes: 'keep me', drawingRef: 'MRW-P&ID-104-02' }]);
+  });
+
+  it('confirming twice is refused (409) and writes nothing more', async () => {
+    const p = testPrefix('TWICE');
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`)]));
+    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
+    const again = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toBe('This import has already been confirmed.');
+    expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(1);
+  });
+
+  it('a preview made before another import was applied is stale (409): upload the file again', async () => {
+    const p = testPrefix('STALE');
+    const first = await upload(`${p}-a.csv`, toCsv([lineRow(`${p}-1`, { service: 'Brine' })]));
+    const second = await upload(`${p}-b.csv`, toCsv([lineRow(`${p}-1`, { service: 'RO permeate' })]));
+    expect((await planner.post(`/api/line-imports/${second.body.id}/confirm`)).status).toBe(200);
+    const res = await planner.post(`/api/line-imports/${first.body.id}/confirm`);
+    expect(res.status).toBe(409);
+    expect(res.body.error).toEqual({ code: 'stale_preview', message: `The register changed since this preview ("${p}-b.csv" was applied after it); upload the file again.` });
+    expect(await linesNamed(p)).toMatchObject([{ service: 'RO permeate' }]);
+    expect((await importRow(first.body.id))?.status).toBe('previewed');
+  });
+
+  it('a database failure part-way writes nothing at all and marks the import failed with a reason', async () => {
+    const p = testPrefix('FAIL');
+    await registerHas(p, [lineRow(`${p}-1`)]);
+    const rows = [lineRow(`${p}-1`, { service: 'Changed' }), ...Array.from({ length: 20 }, (_, i) => lineRow(`${p}-${i + 2}`))];
+    const up = await upload(`${p}.csv`, toCsv(rows));
+    const fn = `lw_test_refuse_${p.replace(/\W/g, '_').toLowerCase()}`;
+    await sequelize.query(`create function ${fn}() returns trigger language plpgsql as $$ begin
+      if new.line_number = '${p}-15' then raise exception 'line % refused by a test trigger', new.line_number; end if; return new; end $$`);
+    await sequelize.query(`create trigger ${fn} before insert or update on lines for each row execute function ${fn}()`);
+    try {
+      const res = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+      expect(res.status).toBe(422);
+      expect(res.body.error.code).toBe('import_failed');
+      expect(res.body.error.message).toMatch(/^Nothing was written: the database refused the import \(line .*-15 refused by a test trigger\)\. The register is as it was before/);
+    } finally {
+      await sequelize.query(`drop trigger ${fn} on lines; drop function ${fn}()`);
+    }
+    expect(await linesNamed(p)).toMatchObject([{ lineNumber: `${p}-1`, service: 'Sulphuric acid 93%' }]);
+    const imp = await planner.get(`/api/line-imports/${up.body.id}`);
+    expect(imp.body).toMatchObject({ status: 'failed', appliedAt: null, error: expect.stringMatching(/^Nothing was written/) });
+    expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(0);
+    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).body.error.message).toMatch(/^This import failed and cannot be confirmed/);
+  });
+
+  it('an import that is not there answers 404, and a malformed id 400', async () => {
+    expect((await planner.get('/api/line-imports/00000000-0000-4000-8000-000000000000')).status).toBe(404);
+    expect((await planner.post('/api/line-imports/not-an-id/confirm')).status).toBe(400);
+  });
+});
+
+describe('a file over the inline limit', () => {
+  it('is stored as previewing and queued for the worker under a deterministic job id', async () => {
+    const p = testPrefix('BIG');
+    const res = await upload(`${p}.csv`, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))));
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ status: 'previewing', progress: 0, totalRows: 0 });
+    const job = await importQueue().getJob(`preview-${res.body.id}`);
+    expect(job?.data).toEqual({ importId: res.body.id, step: 'preview' });
+    await job?.remove(); // the worker test runs this path end to end
+    expect(await LineImportRow.count({ where: { importId: res.body.id } })).toBe(0);
+  });
+});
+
+describe('importing isolation points', () => {
+  it('previews new points, refuses unknown lines and wrong kinds or positions, then writes the good ones', async () => {
+    const p = testPrefix('ISO');
+    await registerHas(p, [lineRow(`${p}-L1`), lineRow(`${p}-L2`)]);
+    const points: CsvRow[] = [
+      { tag: `${p}-V1`, line_number: `${p}-L1`, kind: 'valve', normal_position: 'Open', notes: 'upstream of the dosing pump' },
+      { tag: `${p}-B1`, line_number: `${p}-L2`, kind: 'blind', normal_position: 'removed' },
+      { tag: `${p}-V2`, line_number: `${p}-NOPE`, kind: 'valve', normal_position: 'closed' },
+      { tag: `${p}-X1`, line_number: `${p}-L1`, kind: 'gate', normal_position: 'open' },
+      { tag: `${p}-V3`, line_number: `${p}-L1`, kind: 'valve', normal_position: 'installed' },
+    ];
+    const up = await upload(`${p}-points.csv`, toCsv(points, POINT_HEADER));
+    expect(up.status).toBe(201);
+    expect(up.body).toMatchObject({ kind: 'isolation-points', status: 'previewed', counts: { new: 2, changed: 0, unchanged: 0, rejected: 3 } });
+    const rejected = await rowsOf(up.body.id, '&outcome=rejected');
+    expect(rejected.map((r) => r.problems)).toEqual([
+      [{ column: 'line_number', message: `Line ${p}-NOPE is not in the register; import the lines first.` }],
+      [{ column: 'kind', message: '"gate" is not a kind of isolation point (valve, blind or disconnect).' }],
+      [{ column: 'normal_position', message: 'A valve stands open or closed; "installed" is not one of them.' }],
+    ]);
+    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
+    const written = await IsolationPoint.findAll({ where: { tag: { [Op.startsWith]: p } }, include: ['line'], order: [['tag', 'ASC']] });
+    expect(written.map((ip: any) => [ip.tag, ip.line.lineNumber, ip.kind, ip.normalPosition, ip.notes])).toEqual([
+      [`${p}-B1`, `${p}-L2`, 'blind', 'removed', null],
+      [`${p}-V1`, `${p}-L1`, 'valve', 'open', 'upstream of the dosing pump'],
+    ]);
+
+    const moved = await upload(`${p}-points-2.csv`, toCsv([{ ...points[0]!, line_number: `${p}-L2`, normal_position: 'closed' }, points[1]!], POINT_HEADER));
+    expect(moved.body.counts).toMatchObject({ changed: 1, unchanged: 1 });
+    expect((await rowsOf(moved.body.id))[0].changes).toEqual({ lineNumber: { from: `${p}-L1`, to: `${p}-L2` }, normalPosition: { from: 'open', to: 'closed' } });
+  });
+});
