@@ -4,9 +4,10 @@ import * as createRegister from '@server/db/migrations/20261202000100-create-reg
 import * as lineSearchIndex from '@server/db/migrations/20261202000200-line-search-index';
 import * as plantSettings from '@server/db/migrations/20261202000300-plant-settings';
 import * as lineImportPreviewedAt from '@server/db/migrations/20261203000100-line-import-previewed-at';
+import * as dropLineSearchTrigram from '@server/db/migrations/20261203000200-drop-line-search-trigram';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
-const migrations = [createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt];
+const migrations = [createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram];
 
 export function migrator() {
   return new Umzug({
