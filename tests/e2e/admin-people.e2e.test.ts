@@ -7,7 +7,7 @@ import { Person } from '@server/db/models/person';
 import { startTestApp } from '../helpers/app';
 import { APP, signedIn } from '../helpers/browserless';
 import { DEMO_ACCOUNTS } from '../../scripts/demo-accounts';
-import { launchChromium, signInInBrowser, VIEWPORTS } from '../helpers/chromium';
+import { launchChromium, signedInPage } from '../helpers/chromium';
 
 let stop: () => Promise<void>;
 let browser: Browser;
@@ -37,11 +37,9 @@ afterAll(async () => {
 });
 
 async function pageAs(username: string, pagePath: string): Promise<Page> {
-  context = await browser.newContext({ viewport: VIEWPORTS.tablet });
-  const page = await context.newPage();
-  page.setDefaultTimeout(10_000);
-  await signInInBrowser(page, APP, username, pagePath);
-  return page;
+  const opened = await signedInPage(browser, APP, username, pagePath);
+  context = opened.context;
+  return opened.page;
 }
 
 describe('People & roles in the browser', () => {

@@ -8,7 +8,7 @@ import { config } from '@server/config';
 import { Line } from '@server/db/models/line';
 import { startTestApp } from '../helpers/app';
 import { APP } from '../helpers/browserless';
-import { launchChromium, signInInBrowser, VIEWPORTS } from '../helpers/chromium';
+import { launchChromium, signedInPage } from '../helpers/chromium';
 
 let stop: () => Promise<void>;
 let browser: Browser;
@@ -35,11 +35,9 @@ afterAll(async () => {
 });
 
 async function pageAs(username: string, pagePath: string): Promise<Page> {
-  context = await browser.newContext({ viewport: VIEWPORTS.tablet });
-  const page = await context.newPage();
-  page.setDefaultTimeout(10_000);
-  await signInInBrowser(page, APP, username, pagePath);
-  return page;
+  const opened = await signedInPage(browser, APP, username, pagePath);
+  context = opened.context;
+  return opened.page;
 }
 
 function writeCsv(): string {

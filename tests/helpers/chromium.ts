@@ -21,3 +21,12 @@ export async function signInInBrowser(page: Page, appOrigin: string, username: s
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((url) => url.origin === appOrigin && !url.pathname.startsWith('/auth'));
 }
+
+/** A fresh browser context (no cookies) at tablet width, signed in as `username` on `path`. */
+export async function signedInPage(browser: Browser, appOrigin: string, username: string, path: string) {
+  const context = await browser.newContext({ viewport: VIEWPORTS.tablet });
+  const page = await context.newPage();
+  page.setDefaultTimeout(10_000);
+  await signInInBrowser(page, appOrigin, username, path);
+  return { context, page };
+}
