@@ -8,21 +8,13 @@ import os from 'node:os';
 import path from 'node:path';
 import { ensureDebianPackages } from '../scripts/lib/debian';
 import { startPostgres } from '../scripts/lib/postgres';
+import { prng } from '../scripts/lib/prng';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const PORT = Number(process.env.BENCH_PG_PORT ?? 54390);
 const PSQL = '/usr/lib/postgresql/15/bin/psql';
 const HEADER = 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_temperature_f,drawing,notes';
 
-/** A seeded PRNG (mulberry32): the same file on every run. */
-function prng(seed: number) {
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function benchFile(rows: number, changedEvery = 0): string {
   const rnd = prng(20261203);

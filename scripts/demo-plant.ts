@@ -3,6 +3,7 @@
 // every machine. Design temperatures stay under each material's maximum service temperature.
 
 import Papa from 'papaparse';
+import { prng } from './lib/prng';
 
 export const SITE = 'Marrowby Reach Works';
 
@@ -62,15 +63,6 @@ const AREAS: AreaSpec[] = [
   ] },
 ];
 
-/** mulberry32: small, fast and seeded; Math.random is never used. */
-function prng(seed: number) {
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 export interface DemoLine {
   line_number: string;
