@@ -55,6 +55,8 @@ export type LineDetailDto = z.infer<typeof lineDetailSchema>;
 
 export const LINE_SORTS = ['lineNumber', 'area', 'service', 'material', 'nominalSize', 'designPressurePsi', 'status', 'updatedAt'] as const;
 
+// PostgreSQL refuses a NUL in text ("invalid byte sequence"): refused here, it is a 400, not a 500.
+const noNul = (s: z.ZodString) => s.regex(/^[^\0]*$/, 'must not contain a NUL character');
 const csvList = <T extends z.ZodType>(item: T) =>
   z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(item).optional());
 
@@ -64,10 +66,10 @@ export const lineListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(200).default(50),
   sort: z.enum(LINE_SORTS).default('lineNumber'),
   dir: z.enum(['asc', 'desc']).default('asc'),
-  search: z.string().trim().max(100).optional(),
-  area: csvList(z.string().min(1)),
+  search: noNul(z.string().trim().max(100)).optional(),
+  area: csvList(noNul(z.string().min(1).max(200))),
   material: csvList(pipeMaterialSchema),
-  size: csvList(z.string().min(1)),
+  size: csvList(noNul(z.string().min(1).max(50))),
   status: csvList(lineStatusSchema),
 });
 export type LineListQuery = z.infer<typeof lineListQuerySchema>;

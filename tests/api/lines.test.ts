@@ -139,6 +139,16 @@ describe('reading the line register', () => {
     expect(res.body.error.code).toBe('bad_request');
     expect(Object.keys(res.body.error.details)).toEqual(expect.arrayContaining(['sort', 'pageSize']));
   });
+
+  it('a NUL character in a filter or the search is refused as a bad query, not a server error', async () => {
+    for (const query of ['area=a%00b', 'size=2%00', 'search=a%00b']) {
+      const res = await planner.get(`/api/lines?${query}`);
+      expect(res.status, query).toBe(400);
+      expect(res.body.error.code).toBe('bad_request');
+    }
+    const exported = await planner.get('/api/lines/export.csv?area=a%00b');
+    expect(exported.status).toBe(400);
+  });
 });
 
 describe('one line of the register', () => {
