@@ -103,7 +103,8 @@ export async function startIdentityFake(opts: IdentityFakeOptions): Promise<{ is
   });
   app.use(provider.callback());
   const server: Server = createServer(app);
-  await new Promise<void>((resolve) => server.listen(opts.port, '127.0.0.1', resolve));
+  // A port in use rejects here (the caller stops what it started) instead of crashing the process.
+  await new Promise<void>((resolve, reject) => server.once('error', reject).listen(opts.port, '127.0.0.1', resolve));
   return {
     issuer: `http://127.0.0.1:${opts.port}`,
     stop: () => new Promise((resolve) => (server.closeAllConnections(), server.close(() => resolve()))),

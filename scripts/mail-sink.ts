@@ -35,7 +35,8 @@ export async function startMailSink(opts: { smtpPort: number; httpPort: number }
         .catch(callback);
     },
   });
-  await new Promise<void>((resolve) => smtp.listen(opts.smtpPort, '127.0.0.1', resolve));
+  // A port in use rejects here (the caller stops what it started) instead of crashing the process.
+  await new Promise<void>((resolve, reject) => (smtp.once('error', reject), smtp.listen(opts.smtpPort, '127.0.0.1', resolve)));
 
   const http = createServer((req, res) => {
     if (req.method === 'GET' && req.url === '/messages') {
@@ -52,7 +53,12 @@ export async function startMailSink(opts: { smtpPort: number; httpPort: number }
     res.setHeader('content-type', 'text/html; charset=utf-8');
     res.end(`<!doctype html><title>Captured mail</title><body style="font:15px system-ui;max-width:50rem;margin:2rem auto"><h1>Captured mail (${messages.length})</h1>${rows.join('<hr>') || '<p>No mail yet.</p>'}</body>`);
   });
-  await new Promise<void>((resolve) => http.listen(opts.httpPort, '127.0.0.1', resolve));
+  try {
+    await new Promise<void>((resolve, reject) => http.once('error', reject).listen(opts.httpPort, '127.0.0.1', resolve));
+  } catch (err) {
+    await new Promise<void>((r) => smtp.close(() => r()));
+    throw err;
+  }
   return {
     messages,
     viewerUrl: `http://127.0.0.1:${opts.httpPort}/`,

@@ -12,12 +12,16 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD, DEMO_ROLE_MAP } from './demo-accounts';
 const PORTS = { app: 5180, idp: 5181, mailHttp: 5182, smtp: 2525, pg: 54330, redis: 63790 };
 const DATA = path.join(ROOT, 'data');
 const log = (msg: string) => console.log(`[linewright] ${msg}`);
+/** What has been started, newest last; a failure while starting stops these again. */
+const started: (() => unknown)[] = [];
 
 async function main() {
   const dev = process.argv.includes('--dev');
   ensureDebianPackages(['postgresql', 'redis-server']);
   const pg = startPostgres({ dir: path.join(DATA, 'pg'), port: PORTS.pg, database: 'linewright' });
+  started.push(() => pg.stop());
   const redis = await startRedis({ port: PORTS.redis, dir: path.join(DATA, 'redis') });
+  started.push(() => redis.stop());
   const origin = `http://127.0.0.1:${PORTS.app}`;
   const env: NodeJS.ProcessEnv = {
     ...process.env,
@@ -31,7 +35,9 @@ async function main() {
     SMTP_URL: `smtp://127.0.0.1:${PORTS.smtp}`,
   };
   const idp = await startIdentityFake({ port: PORTS.idp, appOrigin: env.APP_ORIGIN!, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
+  started.push(() => idp.stop());
   const mail = await startMailSink({ smtpPort: PORTS.smtp, httpPort: PORTS.mailHttp });
+  started.push(() => mail.stop());
   log('migrating the database…');
   runTs('migration', 'server/db/migrate.ts', env);
   runTs('demo plant', 'scripts/seed-demo.ts', env);
@@ -41,6 +47,7 @@ async function main() {
   }
   const children: ChildProcess[] = [startTs('server/index.ts', { ...env, LW_PROCESS: 'api' }), startTs('worker/index.ts', { ...env, LW_PROCESS: 'worker' })];
   if (dev) children.push(startTs('scripts/vite-dev.ts', env));
+  started.push(() => children.forEach((c) => c.exitCode === null && c.kill('SIGTERM')));
   await waitForPort(PORTS.app, 30_000);
 
   const accounts = DEMO_ACCOUNTS.map((a) => `    ${a.username.padEnd(11)} ${a.role.padEnd(11)} ${a.name}`).join('\n');
@@ -71,7 +78,8 @@ ${accounts}
   for (const c of children) c.on('exit', (code) => !stopping && (log(`a process stopped (exit ${code}); stopping the rest`), void stop()));
 }
 
-main().catch((err) => {
+main().catch(async (err) => {
   console.error(`[linewright] could not start: ${err.message}`);
+  for (const stop of started.reverse()) await Promise.resolve(stop()).catch(() => {});
   process.exit(1);
 });

@@ -16,27 +16,33 @@ async function main(): Promise<number> {
   ensureDebianPackages(['postgresql', 'redis-server', 'chromium']);
   const tmp = mkdtempSync(path.join(os.tmpdir(), 'linewright-test-'));
   chmodSync(tmp, 0o755);
-  const pg = startPostgres({ dir: path.join(tmp, 'pg'), port: TEST_PORTS.pg, database: 'linewright_test', fsync: false });
-  const redis = await startRedis({ port: TEST_PORTS.redis });
-  const origin = `http://127.0.0.1:${TEST_PORTS.app}`;
-  const env: NodeJS.ProcessEnv = {
-    ...process.env,
-    LW_TEST_PORT_BASE: String(TEST_PORTS.app),
-    NODE_ENV: 'test',
-    LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
-    PORT: String(TEST_PORTS.app),
-    APP_ORIGIN: origin,
-    DATABASE_URL: pg.url,
-    REDIS_URL: redis.url,
-    OIDC_ISSUER: `http://127.0.0.1:${TEST_PORTS.idp}`,
-    OIDC_ROLE_MAP: DEMO_ROLE_MAP,
-    SMTP_URL: `smtp://127.0.0.1:${TEST_PORTS.smtp}`,
-    IMPORT_INLINE_LIMIT: '50',
-    CLIENT_DIST: 'dist',
-  };
-  const idp = await startIdentityFake({ port: TEST_PORTS.idp, appOrigin: origin, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
-  const mail = await startMailSink({ smtpPort: TEST_PORTS.smtp, httpPort: TEST_PORTS.mailHttp });
+  // Whatever has started is stopped again, even when a later service fails to start.
+  const stops: (() => unknown)[] = [];
   try {
+    const pg = startPostgres({ dir: path.join(tmp, 'pg'), port: TEST_PORTS.pg, database: 'linewright_test', fsync: false });
+    stops.push(() => pg.stop());
+    const redis = await startRedis({ port: TEST_PORTS.redis });
+    stops.push(() => redis.stop());
+    const origin = `http://127.0.0.1:${TEST_PORTS.app}`;
+    const env: NodeJS.ProcessEnv = {
+      ...process.env,
+      LW_TEST_PORT_BASE: String(TEST_PORTS.app),
+      NODE_ENV: 'test',
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
+      PORT: String(TEST_PORTS.app),
+      APP_ORIGIN: origin,
+      DATABASE_URL: pg.url,
+      REDIS_URL: redis.url,
+      OIDC_ISSUER: `http://127.0.0.1:${TEST_PORTS.idp}`,
+      OIDC_ROLE_MAP: DEMO_ROLE_MAP,
+      SMTP_URL: `smtp://127.0.0.1:${TEST_PORTS.smtp}`,
+      IMPORT_INLINE_LIMIT: '50',
+      CLIENT_DIST: 'dist',
+    };
+    const idp = await startIdentityFake({ port: TEST_PORTS.idp, appOrigin: origin, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
+    stops.push(() => idp.stop());
+    const mail = await startMailSink({ smtpPort: TEST_PORTS.smtp, httpPort: TEST_PORTS.mailHttp });
+    stops.push(() => mail.stop());
     runTs('migration', 'server/db/migrate.ts', env);
     if (process.argv.includes('--serve')) return await serve(env);
     runBin('client build', 'vite', ['build', '--logLevel', 'warn'], env);
@@ -44,8 +50,7 @@ async function main(): Promise<number> {
     const vitest = spawn(BIN('vitest'), ['run', ...process.argv.slice(2)], { cwd: ROOT, env, stdio: 'inherit' });
     return await new Promise<number>((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
   } finally {
-    await Promise.all([idp.stop(), mail.stop(), redis.stop()]);
-    pg.stop();
+    for (const stop of stops.reverse()) await stop();
     rmSync(tmp, { recursive: true, force: true });
   }
 }
