@@ -2,7 +2,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 
 /** Debian packages the product's services come from, with the binary that proves each is there. */
 export const SERVICE_PACKAGES = {
-  postgresql: '/usr/lib/postgresql/15/bin/postgres',
+  postgresql: '/usr/lib/postgresql/<version>/bin/postgres',
   'redis-server': '/usr/bin/redis-server',
   chromium: '/usr/bin/chromium',
 } as const;

@@ -1,8 +1,15 @@
 import { execFileSync, spawnSync } from 'node:child_process';
-import { chownSync, existsSync, mkdirSync } from 'node:fs';
+import { chownSync, existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
-const BIN = '/usr/lib/postgresql/15/bin';
+/** The newest PostgreSQL the Debian package installed: 15 on bookworm, 17 on trixie. */
+function pgBin(): string {
+  const root = '/usr/lib/postgresql';
+  const versions = existsSync(root) ? readdirSync(root).filter((v) => existsSync(path.join(root, v, 'bin', 'postgres'))) : [];
+  versions.sort((a, b) => Number(b) - Number(a));
+  if (!versions[0]) throw new Error(`no PostgreSQL server under ${root}; install the Debian package "postgresql"`);
+  return path.join(root, versions[0], 'bin');
+}
 
 export interface PostgresHandle {
   url: string;
@@ -24,11 +31,21 @@ function ownByPostgres(dir: string): void {
   const uid = Number(execFileSync('id', ['-u', 'postgres']).toString());
   const gid = Number(execFileSync('id', ['-g', 'postgres']).toString());
   chownSync(dir, uid, gid);
+  // The cluster folder is the postgres user's, but every folder above it must let that user pass.
+  if (spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-w', dir]).status !== 0) {
+    let closed = path.dirname(dir);
+    for (let d = closed; d !== path.dirname(d); d = path.dirname(d)) if ((statSync(d).mode & 0o001) === 0) closed = d;
+    throw new Error(
+      `the postgres user cannot reach ${dir}: ${closed} is closed to other users (a home folder with mode 700, say). ` +
+        `Put the project somewhere else, or let others pass with: chmod o+x ${closed}`,
+    );
+  }
 }
 
 /** Creates (once) and starts a cluster in `dir`, listening on 127.0.0.1:`port` only. */
 export function startPostgres(opts: { dir: string; port: number; database: string; fsync?: boolean }): PostgresHandle {
   const { dir, port, database } = opts;
+  const BIN = pgBin();
   mkdirSync(dir, { recursive: true });
   ownByPostgres(dir);
   if (!existsSync(path.join(dir, 'PG_VERSION'))) {
