@@ -43,7 +43,7 @@ async function main() {
   runTs('demo plant', 'scripts/seed-demo.ts', env);
   if (!dev) {
     log('building the client…');
-    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], env);
+    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], { ...env, NODE_ENV: 'production' }); // React's production build, whatever the server's mode
   }
   const children: ChildProcess[] = [startTs('server/index.ts', { ...env, LW_PROCESS: 'api' }), startTs('worker/index.ts', { ...env, LW_PROCESS: 'worker' })];
   if (dev) children.push(startTs('scripts/vite-dev.ts', env));

@@ -45,7 +45,7 @@ async function main(): Promise<number> {
     stops.push(() => mail.stop());
     runTs('migration', 'server/db/migrate.ts', env);
     if (process.argv.includes('--serve')) return await serve(env);
-    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], env);
+    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], { ...env, NODE_ENV: 'production' }); // React's production build, whatever the server's mode
     // Not spawnSync: the sign-in fake and the mail sink live in this process and must keep answering.
     const vitest = spawn(BIN('vitest'), ['run', ...process.argv.slice(2)], { cwd: ROOT, env, stdio: 'inherit' });
     return await new Promise<number>((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
