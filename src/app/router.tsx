@@ -27,15 +27,21 @@ export const router = createBrowserRouter([
     element: <AppShell />,
     errorElement: <RouteError />,
     children: [
-      { index: true, loader: () => redirect('/lines') },
-      { path: 'lines', lazy: page(() => import('@/app/routes/lines')) },
-      { path: 'lines/:lineNumber', lazy: page(() => import('@/app/routes/line-detail')) },
-      { path: 'imports/new', lazy: page(() => import('@/app/routes/import-new')) },
-      { path: 'imports/:id', lazy: page(() => import('@/app/routes/import-detail')) },
-      { path: 'calculator', lazy: page(() => import('@/app/routes/calculator')) },
-      { path: 'admin/people', lazy: page(() => import('@/app/routes/admin-people')) },
-      { path: 'admin/plant', lazy: page(() => import('@/app/routes/admin-plant')) },
-      { path: '*', lazy: page(() => import('@/app/routes/not-found')) },
+      {
+        // A page that fails to load shows its error inside the shell, with the navigation kept.
+        errorElement: <RouteError />,
+        children: [
+          { index: true, loader: () => redirect('/lines') },
+          { path: 'lines', lazy: page(() => import('@/app/routes/lines')) },
+          { path: 'lines/:lineNumber', lazy: page(() => import('@/app/routes/line-detail')) },
+          { path: 'imports/new', lazy: page(() => import('@/app/routes/import-new')) },
+          { path: 'imports/:id', lazy: page(() => import('@/app/routes/import-detail')) },
+          { path: 'calculator', lazy: page(() => import('@/app/routes/calculator')) },
+          { path: 'admin/people', lazy: page(() => import('@/app/routes/admin-people')) },
+          { path: 'admin/plant', lazy: page(() => import('@/app/routes/admin-plant')) },
+          { path: '*', lazy: page(() => import('@/app/routes/not-found')) },
+        ],
+      },
     ],
   },
 ]);
