@@ -7,12 +7,12 @@ import { chmodSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { ensureDebianPackages } from '../scripts/lib/debian';
-import { startPostgres } from '../scripts/lib/postgres';
+import { pgBin, startPostgres } from '../scripts/lib/postgres';
 import { prng } from '../scripts/lib/prng';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const PORT = Number(process.env.BENCH_PG_PORT ?? 54390);
-const PSQL = '/usr/lib/postgresql/15/bin/psql';
+const PSQL = path.join(pgBin(), 'psql');
 const HEADER = 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_temperature_f,drawing,notes';
 
 

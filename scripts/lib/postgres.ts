@@ -3,7 +3,7 @@ import { chownSync, existsSync, mkdirSync, readdirSync, statSync } from 'node:fs
 import path from 'node:path';
 
 /** The newest PostgreSQL the Debian package installed: 15 on bookworm, 17 on trixie. */
-function pgBin(): string {
+export function pgBin(): string {
   const root = '/usr/lib/postgresql';
   const versions = existsSync(root) ? readdirSync(root).filter((v) => existsSync(path.join(root, v, 'bin', 'postgres'))) : [];
   versions.sort((a, b) => Number(b) - Number(a));

@@ -15,7 +15,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (err?.type === 'entity.parse.failed') {
     err = AppError.badRequest('The request body is not valid JSON.');
   } else if (err?.type === 'entity.too.large') {
-    err = AppError.badRequest('The request body is too large.');
+    err = new AppError(413, 'too_large', 'The request body is too large.');
   }
   if (err instanceof AppError) {
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.details ? { details: err.details } : {}) } });
