@@ -9,11 +9,12 @@ import path from 'node:path';
 import { ensureDebianPackages } from '../scripts/lib/debian';
 import { pgBin, startPostgres } from '../scripts/lib/postgres';
 import { prng } from '../scripts/lib/prng';
+import { LINE_CSV_COLUMNS } from '../shared/schemas/line-imports';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const PORT = Number(process.env.BENCH_PG_PORT ?? 54390);
 const PSQL = path.join(pgBin(), 'psql');
-const HEADER = 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_temperature_f,drawing,notes';
+const HEADER = LINE_CSV_COLUMNS.join(',');
 
 
 function benchFile(rows: number, changedEvery = 0): string {

@@ -3,12 +3,10 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { lineOrder, lineWhere, type LineRow } from '@server/services/line-service';
 import type { LineExportQuery } from '@shared/schemas/lines';
+import { LINE_CSV_COLUMNS } from '@shared/schemas/line-imports';
 
 /** The columns the line importer reads, in its order: an export re-imports unchanged. */
-export const LINE_IMPORT_COLUMNS = [
-  'line_number', 'area', 'service', 'material', 'schedule', 'nominal_size',
-  'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes',
-] as const;
+export const LINE_IMPORT_COLUMNS = LINE_CSV_COLUMNS;
 
 export const EXPORT_BATCH = 5000;
 

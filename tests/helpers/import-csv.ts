@@ -1,11 +1,12 @@
 import { randomUUID } from 'node:crypto';
 import { LineImport } from '@server/db/models/line-import';
+import { ISOLATION_POINT_CSV_COLUMNS, LINE_CSV_COLUMNS } from '@shared/schemas/line-imports';
 
 /** A prefix no other test shares, so each test's line numbers and tags are its own. */
 export const testPrefix = (what: string) => `${what}-${randomUUID().slice(0, 8).toUpperCase()}`;
 
-export const LINE_HEADER = ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes'];
-export const POINT_HEADER = ['tag', 'line_number', 'kind', 'normal_position', 'notes'];
+export const LINE_HEADER: string[] = [...LINE_CSV_COLUMNS];
+export const POINT_HEADER: string[] = [...ISOLATION_POINT_CSV_COLUMNS];
 
 export type CsvRow = Record<string, string>;
 
