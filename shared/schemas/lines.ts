@@ -57,8 +57,18 @@ export const LINE_SORTS = ['lineNumber', 'area', 'service', 'material', 'nominal
 
 // PostgreSQL refuses a NUL in text ("invalid byte sequence"): refused here, it is a 400, not a 500.
 const noNul = (s: z.ZodString) => s.regex(/^[^\0]*$/, 'must not contain a NUL character');
-const csvList = <T extends z.ZodType>(item: T) =>
-  z.preprocess((v) => (typeof v === 'string' ? v.split(',').filter(Boolean) : v), z.array(item).optional());
+/**
+ * A filter of several values, each sent as its own repeated parameter (`?area=A&area=B`): Express's
+ * query parser gives one string or an array of strings. Values are never split, so an area may hold
+ * a comma. Empty values are dropped, and no value at all is no filter.
+ */
+const repeatedList = <T extends z.ZodType>(item: T) =>
+  z.preprocess((v) => {
+    const list = typeof v === 'string' ? [v] : v;
+    if (!Array.isArray(list)) return list;
+    const values = list.filter((x) => x !== '');
+    return values.length ? values : undefined;
+  }, z.array(item).optional());
 
 /** Query of the register table: paging, one sort, filters and a line-number search. */
 export const lineListQuerySchema = z.object({
@@ -67,10 +77,10 @@ export const lineListQuerySchema = z.object({
   sort: z.enum(LINE_SORTS).default('lineNumber'),
   dir: z.enum(['asc', 'desc']).default('asc'),
   search: noNul(z.string().trim().max(100)).optional(),
-  area: csvList(noNul(z.string().min(1).max(200))),
-  material: csvList(pipeMaterialSchema),
-  size: csvList(noNul(z.string().min(1).max(50))),
-  status: csvList(lineStatusSchema),
+  area: repeatedList(noNul(z.string().min(1).max(200))),
+  material: repeatedList(pipeMaterialSchema),
+  size: repeatedList(noNul(z.string().min(1).max(50))),
+  status: repeatedList(lineStatusSchema),
 });
 export type LineListQuery = z.infer<typeof lineListQuerySchema>;
 

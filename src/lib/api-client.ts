@@ -42,12 +42,13 @@ export const api = {
   upload: <T>(path: string, form: FormData) => request<T>('POST', path, form),
 };
 
-/** Builds a query string from defined values; arrays become comma lists. */
+/** Builds a query string from defined values; an array's values become one repeated parameter each (`?a=1&a=2`). */
 export function toSearch(params: Record<string, unknown>): string {
   const q = new URLSearchParams();
   for (const [k, v] of Object.entries(params)) {
-    if (v === undefined || v === null || v === '' || (Array.isArray(v) && v.length === 0)) continue;
-    q.set(k, Array.isArray(v) ? v.join(',') : String(v));
+    if (v === undefined || v === null || v === '') continue;
+    if (Array.isArray(v)) for (const item of v) q.append(k, String(item));
+    else q.set(k, String(v));
   }
   const s = q.toString();
   return s ? `?${s}` : '';

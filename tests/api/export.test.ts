@@ -17,8 +17,11 @@ beforeAll(async () => {
 });
 afterAll(() => stop());
 
-async function exportCsv(query: Record<string, string>) {
-  const res = await fitter.raw(`/api/lines/export.csv?${new URLSearchParams(query)}`);
+/** A list filter of several values goes as one repeated parameter per value (`?area=A&area=B`), as the client sends it. */
+const toQuery = (query: Record<string, string | string[]>) =>
+  new URLSearchParams(Object.entries(query).flatMap(([k, v]) => (Array.isArray(v) ? v : [v]).map((x): [string, string] => [k, x])));
+async function exportCsv(query: Record<string, string | string[]>) {
+  const res = await fitter.raw(`/api/lines/export.csv?${toQuery(query)}`);
   const text = await res.text();
   const rows = Papa.parse<string[]>(text, { delimiter: ',', skipEmptyLines: true }).data;
   return { res, text, header: rows[0], rows: rows.slice(1) };
@@ -86,10 +89,22 @@ describe('exporting the line register as CSV', () => {
       { area: `${p} A`, nominalSize: '4', material: 'PVC' },
       { area: `${p} C`, nominalSize: '1', material: 'CPVC' },
     ]);
-    const sorted = await exportCsv({ area: `${p} A,${p} B`, material: 'CPVC', sort: 'nominalSize', dir: 'desc', page: '2', pageSize: '1' });
+    const sorted = await exportCsv({ area: [`${p} A`, `${p} B`], material: 'CPVC', sort: 'nominalSize', dir: 'desc', page: '2', pageSize: '1' });
     expect(column(sorted.header, sorted.rows, 'nominal_size')).toEqual(['10', '2', '3/4']);
-    const searched = await exportCsv({ search: `${p.toLowerCase()}-00`, size: '1,4' });
+    const searched = await exportCsv({ search: `${p.toLowerCase()}-00`, size: ['1', '4'] });
     expect(column(searched.header, searched.rows, 'line_number')).toEqual([`${p}-004`, `${p}-005`]);
+  });
+
+  it('an area whose name holds a comma is one area, alone or with a second one', async () => {
+    const p = uniquePrefix('EXPCOMMA');
+    const [north, caustic] = [`${p} Tank farm, north`, `${p} 200 Caustic`];
+    await makeLines(p, [{ area: north }, { area: caustic }, { area: `${p} Tank farm` }]);
+    const alone = await exportCsv({ area: north });
+    expect(alone.res.status).toBe(200);
+    expect(column(alone.header, alone.rows, 'line_number')).toEqual([`${p}-001`]);
+    expect(column(alone.header, alone.rows, 'area')).toEqual([north]);
+    const both = await exportCsv({ area: [north, caustic] });
+    expect(column(both.header, both.rows, 'line_number')).toEqual([`${p}-001`, `${p}-002`]);
   });
 
   it('a register larger than one batch comes out whole, each line once and in order', async () => {

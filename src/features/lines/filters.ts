@@ -14,7 +14,9 @@ const DEFAULTS = lineListQuerySchema.parse({});
  */
 export function filtersFromSearch(params: URLSearchParams): LineFilters {
   const read = <K extends keyof typeof shape>(key: K) => {
-    const parsed = shape[key].safeParse(params.get(key) ?? undefined);
+    // The list filters come as repeated parameters (`?area=A&area=B`), the rest once.
+    const raw = (FILTER_KEYS as readonly string[]).includes(key) ? params.getAll(key) : (params.get(key) ?? undefined);
+    const parsed = shape[key].safeParse(raw);
     return (parsed.success ? parsed.data : DEFAULTS[key]) as LineFilters[K];
   };
   return {
@@ -34,7 +36,7 @@ export function filtersFromSearch(params: URLSearchParams): LineFilters {
 export function filtersToSearch(f: LineFilters): URLSearchParams {
   const q = new URLSearchParams();
   if (f.search) q.set('search', f.search);
-  for (const key of FILTER_KEYS) if (f[key]?.length) q.set(key, f[key]!.join(','));
+  for (const key of FILTER_KEYS) for (const value of f[key] ?? []) q.append(key, value);
   if (f.sort !== DEFAULTS.sort) q.set('sort', f.sort);
   if (f.dir !== DEFAULTS.dir) q.set('dir', f.dir);
   if (f.page !== DEFAULTS.page) q.set('page', String(f.page));
