@@ -170,7 +170,8 @@ export async function applyImport(id: string, opts: { notify?: boolean } = {}): 
   }
 }
 
-async function mailConfirmer(imp: LineImport, subject: string, text: string): Promise<void> {
+/** Mails whoever confirmed the import; one mail per outcome however often it is asked for. */
+export async function mailConfirmer(imp: LineImport, subject: string, text: string): Promise<void> {
   const person = imp.confirmedById ? await Person.findByPk(imp.confirmedById) : null;
   if (!person?.email) return;
   await enqueueMail({ to: person.email, subject, text }, `line-import-${imp.id}-${subject.includes('failed') ? 'failed' : 'applied'}`);
