@@ -1,13 +1,7 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 
-/** Debian packages the product's services come from, with the binary that proves each is there. */
-export const SERVICE_PACKAGES = {
-  postgresql: '/usr/lib/postgresql/<version>/bin/postgres',
-  'redis-server': '/usr/bin/redis-server',
-  chromium: '/usr/bin/chromium',
-} as const;
-
-export type ServicePackage = keyof typeof SERVICE_PACKAGES;
+/** The Debian packages the product's services come from; dpkg says whether each is installed. */
+export type ServicePackage = 'postgresql' | 'redis-server' | 'chromium';
 
 function installed(pkg: string): boolean {
   const r = spawnSync('dpkg-query', ['-W', '-f=${Status}', pkg], { encoding: 'utf8' });
