@@ -24,6 +24,8 @@ async function main(): Promise<number> {
     const redis = await startRedis({ port: TEST_PORTS.redis });
     stops.push(() => redis.stop());
     const origin = `http://127.0.0.1:${TEST_PORTS.app}`;
+    // A run on another port base builds the client into a folder of its own, so two runs side by side never share one.
+    const clientDist = TEST_PORTS.app === 5290 ? 'dist' : `.tmp/dist-${TEST_PORTS.app}`;
     const env: NodeJS.ProcessEnv = {
       ...process.env,
       LW_TEST_PORT_BASE: String(TEST_PORTS.app),
@@ -37,7 +39,7 @@ async function main(): Promise<number> {
       OIDC_ROLE_MAP: DEMO_ROLE_MAP,
       SMTP_URL: `smtp://127.0.0.1:${TEST_PORTS.smtp}`,
       IMPORT_INLINE_LIMIT: '50',
-      CLIENT_DIST: 'dist',
+      CLIENT_DIST: clientDist,
     };
     const idp = await startIdentityFake({ port: TEST_PORTS.idp, appOrigin: origin, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
     stops.push(() => idp.stop());
@@ -45,7 +47,7 @@ async function main(): Promise<number> {
     stops.push(() => mail.stop());
     runTs('migration', 'server/db/migrate.ts', env);
     if (process.argv.includes('--serve')) return await serve(env);
-    runBin('client build', 'vite', ['build', '--logLevel', 'warn'], { ...env, NODE_ENV: 'production' }); // React's production build, whatever the server's mode
+    runBin('client build', 'vite', ['build', '--logLevel', 'warn', '--outDir', clientDist, '--emptyOutDir'], { ...env, NODE_ENV: 'production' }); // React's production build, whatever the server's mode
     // Not spawnSync: the sign-in fake and the mail sink live in this process and must keep answering.
     const vitest = spawn(BIN('vitest'), ['run', ...process.argv.slice(2)], { cwd: ROOT, env, stdio: 'inherit' });
     return await new Promise<number>((resolve) => vitest.on('exit', (code) => resolve(code ?? 1)));
