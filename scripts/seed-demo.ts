@@ -16,7 +16,7 @@ async function load(): Promise<void> {
   const { AuditEntry } = await import('../server/db/models/audit-entry');
   const { Person } = await import('../server/db/models/person');
   const { recordAudit } = await import('../server/services/audit-service');
-  const { confirmImport, uploadImport } = await import('../server/services/line-import-service');
+  const { confirmImport, uploadImport } = await import('../server/services/line-imports/import-service');
   try {
     if (await AuditEntry.findOne({ where: { action: 'demo-loaded' } })) return log(`${SITE} was loaded before; the register is left as it is.`);
     const [person] = await Person.findOrCreate({

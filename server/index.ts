@@ -2,7 +2,7 @@ import { createServer } from 'node:http';
 import { config } from '@server/config';
 import { createApp } from '@server/app';
 import { sequelize } from '@server/db/sequelize';
-import { closeQueues } from '@server/queues';
+import { closeQueues } from '@server/queues/connection';
 import { logger } from '@server/logger';
 
 const server = createServer(createApp());

@@ -1,6 +1,6 @@
 import { logger } from '@server/logger';
 import { sequelize } from '@server/db/sequelize';
-import { closeQueues } from '@server/queues';
+import { closeQueues } from '@server/queues/connection';
 import { startWorkers } from './workers';
 
 const running = startWorkers();

@@ -1,7 +1,8 @@
 import type { RequestHandler } from 'express';
 import { AppError } from '@server/errors';
 import { currentPerson } from '@server/services/people-service';
-import { ROLE_LABELS, type Me, type Role } from '@shared/schemas/roles';
+import { may, refusalFor, type Action } from '@shared/permissions';
+import type { Me } from '@shared/schemas/roles';
 
 declare module 'express-session' {
   interface SessionData {
@@ -15,7 +16,6 @@ declare global {
   namespace Express {
     interface Locals {
       me: Me;
-      query: unknown;
     }
   }
 }
@@ -28,15 +28,10 @@ export const requireSignIn: RequestHandler = async (req, res, next) => {
   next();
 };
 
-const describe = (roles: readonly Role[], joiner = ' or ') => roles.map((r) => ROLE_LABELS[r].toLowerCase()).join(joiner);
-const withArticle = (words: string) => `${/^[aeiou]/.test(words) ? 'an' : 'a'} ${words}`;
-
-/** Allows the request when the person holds any of `roles`; otherwise 403 naming who may. */
-export function requireRole(...roles: Role[]): RequestHandler {
+/** Allows the request when the person's roles may do `action` (shared/permissions.ts); otherwise 403 naming who may. */
+export function requirePermission(action: Action): RequestHandler {
   return (_req, res, next) => {
-    if (!res.locals.me.roles.some((r) => roles.includes(r))) {
-      throw AppError.forbidden(`Only ${withArticle(describe(roles))} may do this; your roles are ${describe(res.locals.me.roles, ' and ') || 'none'}.`);
-    }
+    if (!may(res.locals.me, action)) throw AppError.forbidden(refusalFor(action, res.locals.me.roles));
     next();
   };
 }

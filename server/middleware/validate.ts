@@ -1,8 +1,13 @@
-import type { RequestHandler } from 'express';
+import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z } from 'zod';
 import { AppError } from '@server/errors';
 
 type Parts = { params?: z.ZodType; query?: z.ZodType; body?: z.ZodType };
+
+/** What the handler receives: each part parsed by its schema (a part without one is absent). */
+export type Valid<P extends Parts> = {
+  [K in keyof P]: P[K] extends z.ZodType ? z.output<P[K]> : never;
+};
 
 /** Turns zod issues into `{ field: [messages] }`, the shape forms map onto their fields. */
 export function issuesToDetails(error: z.ZodError): Record<string, string[]> {
@@ -14,9 +19,17 @@ export function issuesToDetails(error: z.ZodError): Record<string, string[]> {
   return details;
 }
 
-/** Validates with the shared schemas; the parsed values replace the raw ones (query in res.locals). */
-export function validate(parts: Parts): RequestHandler {
-  return (req, res, next) => {
+/**
+ * Validates the request's parts with the shared schemas and hands the handler the parsed, typed
+ * values: `validate({ params, query, body }, async ({ params, body }, req, res) => …)`. A part that
+ * fails answers 400 with the fields and their messages; the handler never sees raw input.
+ */
+export function validate<P extends Parts>(
+  parts: P,
+  handler: (valid: Valid<P>, req: Request, res: Response, next: NextFunction) => unknown,
+): RequestHandler {
+  return async (req, res, next) => {
+    const valid: Record<string, unknown> = {};
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = parts[part];
       if (!schema) continue;
@@ -24,9 +37,8 @@ export function validate(parts: Parts): RequestHandler {
       if (!result.success) {
         throw AppError.badRequest(`Some of the ${part === 'body' ? 'fields' : part} are not valid.`, issuesToDetails(result.error));
       }
-      if (part === 'query') res.locals.query = result.data;
-      else (req as unknown as Record<string, unknown>)[part] = result.data;
+      valid[part] = result.data;
     }
-    next();
+    await handler(valid as Valid<P>, req, res, next);
   };
 }

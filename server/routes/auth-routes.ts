@@ -14,12 +14,12 @@ const returnTo = z.object({ returnTo: z.string().regex(/^\/(?!\/)[^\s\\]*$/).opt
 
 export const authRoutes = Router();
 
-authRoutes.get('/login', validate({ query: returnTo }), async (req, res) => {
-  const { url, pending } = await beginSignIn((res.locals.query as z.infer<typeof returnTo>).returnTo ?? '/');
+authRoutes.get('/login', validate({ query: returnTo }, async ({ query }, req, res) => {
+  const { url, pending } = await beginSignIn(query.returnTo ?? '/');
   req.session.signIn = pending;
   await save(req);
   res.redirect(url);
-});
+}));
 
 authRoutes.get('/callback', async (req, res) => {
   const pending = req.session.signIn;

@@ -1,11 +1,13 @@
 import { Router } from 'express';
+import { requirePermission } from '@server/middleware/auth';
 import { validate } from '@server/middleware/validate';
 import { jointForPlant } from '@server/services/calc-service';
 import { jointSpecSchema } from '@shared/trade';
 
-/** Trade computations; every signed-in role may ask (requireSignIn is applied at /api). */
+/** Trade computations. */
 export const calcRoutes = Router();
+calcRoutes.use(requirePermission('calc.use'));
 
-calcRoutes.post('/joint', validate({ body: jointSpecSchema }), async (req, res) => {
-  res.json(await jointForPlant(req.body));
-});
+calcRoutes.post('/joint', validate({ body: jointSpecSchema }, async ({ body }, _req, res) => {
+  res.json(await jointForPlant(body));
+}));

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import multer from 'multer';
 import { AppError } from '@server/errors';
-import { requireRole } from '@server/middleware/auth';
+import { requirePermission } from '@server/middleware/auth';
 import { validate } from '@server/middleware/validate';
-import { confirmImport, getImport, listImportRows, uploadImport } from '@server/services/line-import-service';
+import { confirmImport, getImport, listImportRows, uploadImport } from '@server/services/line-imports/import-service';
 import { importIdParamsSchema, importRowsQuerySchema } from '@shared/schemas/line-imports';
 
 // A CSV file kept in memory (the service stores its text); 50 MB is well over 100,000 lines.
@@ -18,22 +18,22 @@ const upload = multer({
 });
 
 export const lineImportRoutes = Router();
-lineImportRoutes.use(requireRole('planner', 'admin'));
+lineImportRoutes.use(requirePermission('lines.import'));
 
 lineImportRoutes.post('/', upload.single('file'), async (req, res) => {
   if (!req.file) throw AppError.badRequest('Choose a CSV file to upload (form field "file").', { file: ['Choose a CSV file to upload.'] });
   res.status(201).json(await uploadImport(res.locals.me, { filename: req.file.originalname, buffer: req.file.buffer }));
 });
 
-lineImportRoutes.get('/:id', validate({ params: importIdParamsSchema }), async (req, res) => {
-  res.json(await getImport(req.params.id as string));
-});
+lineImportRoutes.get('/:id', validate({ params: importIdParamsSchema }, async ({ params }, _req, res) => {
+  res.json(await getImport(params.id));
+}));
 
-lineImportRoutes.get('/:id/rows', validate({ params: importIdParamsSchema, query: importRowsQuerySchema }), async (req, res) => {
-  res.json(await listImportRows(req.params.id as string, res.locals.query as never));
-});
+lineImportRoutes.get('/:id/rows', validate({ params: importIdParamsSchema, query: importRowsQuerySchema }, async ({ params, query }, _req, res) => {
+  res.json(await listImportRows(params.id, query));
+}));
 
-lineImportRoutes.post('/:id/confirm', validate({ params: importIdParamsSchema }), async (req, res) => {
-  const imp = await confirmImport(res.locals.me, req.params.id as string);
+lineImportRoutes.post('/:id/confirm', validate({ params: importIdParamsSchema }, async ({ params }, _req, res) => {
+  const imp = await confirmImport(res.locals.me, params.id);
   res.status(imp.status === 'applying' ? 202 : 200).json(imp);
-});
+}));

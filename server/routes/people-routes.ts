@@ -1,16 +1,16 @@
 import { Router } from 'express';
-import { requireRole } from '@server/middleware/auth';
+import { requirePermission } from '@server/middleware/auth';
 import { validate } from '@server/middleware/validate';
 import { listPeople, setRoles } from '@server/services/people-service';
 import { personIdParamsSchema, personRolesBodySchema } from '@shared/schemas/roles';
 
 export const peopleRoutes = Router();
-peopleRoutes.use(requireRole('admin'));
+peopleRoutes.use(requirePermission('people.manage'));
 
 peopleRoutes.get('/', async (_req, res) => {
   res.json(await listPeople());
 });
 
-peopleRoutes.put('/:id/roles', validate({ params: personIdParamsSchema, body: personRolesBodySchema }), async (req, res) => {
-  res.json(await setRoles(res.locals.me, req.params.id as string, req.body.roles));
-});
+peopleRoutes.put('/:id/roles', validate({ params: personIdParamsSchema, body: personRolesBodySchema }, async ({ params, body }, _req, res) => {
+  res.json(await setRoles(res.locals.me, params.id, body.roles));
+}));

@@ -4,7 +4,7 @@ import { PlantSetting } from '@server/db/models/plant-setting';
 import { jointPicture, type JointSpecInput } from '@shared/trade';
 import { DEFAULT_VALUES, type CalculatorValues } from '@/features/calculator/form';
 import { differingSections, previewJoint } from '@/features/calculator/preview';
-import { startTestApp } from '../helpers/app';
+import { useTestApp } from '../helpers/app';
 import { signedIn, type Browserless } from '../helpers/browserless';
 
 const plain: JointSpecInput = {
@@ -18,14 +18,7 @@ const expected = (spec: JointSpecInput, plant: { cureScheduleId: string; testCap
 
 const plantDefaults = () => PlantSetting.update({ cureScheduleId: 'A', testCap: 'rating', updatedById: null }, { where: { id: 1 } });
 
-let stop: () => Promise<void>;
-let fitter: Browserless;
-beforeAll(async () => {
-  await plantDefaults();
-  stop = await startTestApp();
-  fitter = await signedIn('fitter');
-});
-afterAll(() => stop());
+const users = useTestApp({ signIn: ['fitter'], before: plantDefaults });
 // each test that changes the plant's settings puts the defaults back
 afterEach(plantDefaults);
 
@@ -51,7 +44,7 @@ describe('POST /api/calc/joint answers with the same picture as jointPicture', (
     }],
   ];
   it.each(cases)('%s', async (_name, spec, check) => {
-    const res = await fitter.post('/api/calc/joint', spec);
+    const res = await users.fitter.post('/api/calc/joint', spec);
     expect(res.status).toBe(200);
     expect(res.body).toEqual(expected(spec));
     check(res.body);
@@ -64,7 +57,7 @@ describe('POST /api/calc/joint answers with the same picture as jointPicture', (
   });
 
   it('a body of the wrong types is a 400 in the one error shape, with details per field', async () => {
-    const res = await fitter.post('/api/calc/joint', { ...plain, designPressurePsi: '100', schedule: 60, nominalSize: '7' });
+    const res = await users.fitter.post('/api/calc/joint', { ...plain, designPressurePsi: '100', schedule: 60, nominalSize: '7' });
     expect(res.status).toBe(400);
     expect(res.body.error).toMatchObject({ code: 'bad_request', message: expect.any(String) });
     expect(Object.keys(res.body.error.details).sort()).toEqual(['designPressurePsi', 'nominalSize', 'schedule']);
@@ -75,29 +68,29 @@ describe('POST /api/calc/joint answers with the same picture as jointPicture', (
 describe("the plant's settings decide the schedule and the test cap", () => {
   it('with schedule B the server answers from schedule B', async () => {
     await PlantSetting.update({ cureScheduleId: 'B' }, { where: { id: 1 } });
-    const res = await fitter.post('/api/calc/joint', plain);
+    const res = await users.fitter.post('/api/calc/joint', plain);
     expect(res.body).toEqual(expected(plain, { cureScheduleId: 'B', testCap: 'rating' }));
     expect(res.body.cure).toMatchObject({ schedule: 'B', sizeBand: '1-1/2"–3"', cureMinutes: 120 });
   });
 
   it('a caller cannot pick another schedule than the plant uses', async () => {
-    const res = await fitter.post('/api/calc/joint', { ...plain, cureScheduleId: 'B', testCap: 'one-and-a-half-rating' });
+    const res = await users.fitter.post('/api/calc/joint', { ...plain, cureScheduleId: 'B', testCap: 'one-and-a-half-rating' });
     expect(res.body.spec).toMatchObject({ cureScheduleId: 'A', testCap: 'rating' });
     expect(res.body.cure.schedule).toBe('A');
   });
 
   it("with the 1.5 × cap, a test above the weakest component's rating passes", async () => {
     const spec = { ...plain, lowestComponentRatingPsi: 100 };
-    expect((await fitter.post('/api/calc/joint', spec)).body.test.ok).toBe(false);
+    expect((await users.fitter.post('/api/calc/joint', spec)).body.test.ok).toBe(false);
     await PlantSetting.update({ testCap: 'one-and-a-half-rating' }, { where: { id: 1 } });
-    const res = await fitter.post('/api/calc/joint', spec);
+    const res = await users.fitter.post('/api/calc/joint', spec);
     expect(res.body.test).toMatchObject({ ok: true, testPsi: 150, capPsi: 150 });
   });
 });
 
 describe('GET and PUT /api/plant-settings', () => {
   it('every role reads them, with the schedule described', async () => {
-    const res = await fitter.get('/api/plant-settings');
+    const res = await users.fitter.get('/api/plant-settings');
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ cureScheduleId: 'A', testCap: 'rating', schedule: { id: 'A', source: expect.stringContaining('[mfr]') } });
   });
@@ -120,7 +113,7 @@ describe('GET and PUT /api/plant-settings', () => {
     expect(await PlantSetting.findByPk(1)).toMatchObject({ cureScheduleId: 'B', testCap: 'one-and-a-half-rating', updatedById: me.id });
     const audit = await AuditEntry.findOne({ where: { action: 'plant-settings-set', actorId: me.id }, order: [['id', 'DESC']] });
     expect(audit).toMatchObject({ entity: 'plant-settings', before: { cureScheduleId: 'A', testCap: 'rating' }, after: { cureScheduleId: 'B', testCap: 'one-and-a-half-rating' } });
-    expect((await fitter.post('/api/calc/joint', plain)).body.cure.schedule).toBe('B');
+    expect((await users.fitter.post('/api/calc/joint', plain)).body.cure.schedule).toBe('B');
   });
 
   it('a schedule that is not published is a 400 naming the field, and nothing changes', async () => {
@@ -147,7 +140,7 @@ describe("the page's preview and the server's answer agree", () => {
   it.each(table)('%s', async (_name, values) => {
     const preview = previewJoint(values, PLANT_A);
     if (!preview.ok) throw new Error(`the form did not read: ${JSON.stringify(preview.errors)}`);
-    const res = await fitter.post('/api/calc/joint', preview.spec);
+    const res = await users.fitter.post('/api/calc/joint', preview.spec);
     expect(res.status).toBe(200);
     expect(differingSections(preview.picture, res.body)).toEqual([]);
   });
@@ -156,7 +149,7 @@ describe("the page's preview and the server's answer agree", () => {
     const preview = previewJoint(DEFAULT_VALUES, PLANT_A);
     if (!preview.ok) throw new Error('the defaults did not read');
     await PlantSetting.update({ cureScheduleId: 'B' }, { where: { id: 1 } });
-    const res = await fitter.post('/api/calc/joint', preview.spec);
+    const res = await users.fitter.post('/api/calc/joint', preview.spec);
     expect(differingSections(preview.picture, res.body)).toEqual(expect.arrayContaining(['spec', 'cure']));
   });
 });

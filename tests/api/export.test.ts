@@ -1,27 +1,21 @@
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
-import { EXPORT_BATCH } from '@server/services/csv-export';
-import { startTestApp } from '../helpers/app';
+import { EXPORT_BATCH } from '@server/services/line-register-export';
+import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
 import { makeLines, uniquePrefix } from '../helpers/line-rows';
 
 // The columns the line importer reads, written out here so a rename on either side shows.
 const IMPORT_COLUMNS = ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes'];
 
-let stop: () => Promise<void>;
-let fitter: Browserless;
-beforeAll(async () => {
-  stop = await startTestApp();
-  fitter = await signedIn('fitter');
-});
-afterAll(() => stop());
+const users = useTestApp({ signIn: ['fitter'] });
 
 /** A list filter of several values goes as one repeated parameter per value (`?area=A&area=B`), as the client sends it. */
 const toQuery = (query: Record<string, string | string[]>) =>
   new URLSearchParams(Object.entries(query).flatMap(([k, v]) => (Array.isArray(v) ? v : [v]).map((x): [string, string] => [k, x])));
 async function exportCsv(query: Record<string, string | string[]>) {
-  const res = await fitter.raw(`/api/lines/export.csv?${toQuery(query)}`);
+  const res = await users.fitter.raw(`/api/lines/export.csv?${toQuery(query)}`);
   const text = await res.text();
   const rows = Papa.parse<string[]>(text, { delimiter: ',', skipEmptyLines: true }).data;
   return { res, text, header: rows[0], rows: rows.slice(1) };
@@ -124,7 +118,7 @@ describe('exporting the line register as CSV', () => {
   });
 
   it('a filter the register does not know is refused in the one error shape, not as a file', async () => {
-    const res = await fitter.get('/api/lines/export.csv?material=STEEL');
+    const res = await users.fitter.get('/api/lines/export.csv?material=STEEL');
     expect(res.status).toBe(400);
     expect(res.headers.get('content-disposition')).toBeNull();
     expect(res.body.error).toMatchObject({ code: 'bad_request', details: { 'material.0': [expect.stringContaining('PVC')] } });

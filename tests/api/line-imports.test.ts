@@ -5,29 +5,23 @@ import { AuditEntry } from '@server/db/models/audit-entry';
 import { IsolationPoint } from '@server/db/models/isolation-point';
 import { Line } from '@server/db/models/line';
 import { LineImport, LineImportRow } from '@server/db/models/line-import';
-import { importQueue } from '@server/queues';
+import { importQueue } from '@server/queues/line-imports';
 import { lineImportSchema } from '@shared/schemas/line-imports';
-import { startTestApp } from '../helpers/app';
+import { useTestApp } from '../helpers/app';
 import { signedIn, type Browserless } from '../helpers/browserless';
 import { POINT_HEADER, importRow, lineRow, testPrefix, toCsv, type CsvRow } from '../helpers/import-csv';
 
-let stop: () => Promise<void>;
-let planner: Browserless;
-beforeAll(async () => {
-  stop = await startTestApp();
-  planner = await signedIn('planner');
-});
-afterAll(() => stop());
+const users = useTestApp({ signIn: ['planner'] });
 
-const upload = (name: string, text: string, as = planner) => as.upload('/api/line-imports', name, text);
-const rowsOf = async (id: string, query = '') => (await planner.get(`/api/line-imports/${id}/rows?pageSize=500${query}`)).body.rows as any[];
+const upload = (name: string, text: string, as = users.planner) => as.upload('/api/line-imports', name, text);
+const rowsOf = async (id: string, query = '') => (await users.planner.get(`/api/line-imports/${id}/rows?pageSize=500${query}`)).body.rows as any[];
 const linesNamed = (p: string) => Line.findAll({ where: { lineNumber: { [Op.startsWith]: p } }, order: [['lineNumber', 'ASC']] });
 
 /** Uploads and confirms a small lines file: the register then holds these rows. */
 async function registerHas(p: string, rows: CsvRow[]) {
   const up = await upload(`${p}-seed.csv`, toCsv(rows));
   expect(up.status).toBe(201);
-  const done = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+  const done = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
   expect(done.status).toBe(200);
   return done.body;
 }
@@ -58,11 +52,11 @@ describe('previewing a lines file', () => {
   it('lists only the rows of one outcome, a page at a time', async () => {
     const p = testPrefix('PAGE');
     const res = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`, { material: 'steel' }), lineRow(`${p}-3`), lineRow(`${p}-4`)]));
-    const page = await planner.get(`/api/line-imports/${res.body.id}/rows?outcome=new&page=2&pageSize=2`);
+    const page = await users.planner.get(`/api/line-imports/${res.body.id}/rows?outcome=new&page=2&pageSize=2`);
     expect(page.status).toBe(200);
     expect(page.body.total).toBe(3);
     expect(page.body.rows.map((r: any) => r.key)).toEqual([`${p}-4`]);
-    expect((await planner.get(`/api/line-imports/${res.body.id}/rows?outcome=maybe`)).status).toBe(400);
+    expect((await users.planner.get(`/api/line-imports/${res.body.id}/rows?outcome=maybe`)).status).toBe(400);
   });
 
   it('rejects each kind of bad row with its column and a reason a planner can act on', async () => {
@@ -101,7 +95,7 @@ describe('previewing a lines file', () => {
     const res = await upload(`${p}.csv`, text);
     expect(res.status).toBe(201);
     expect(res.body.counts).toMatchObject({ new: 2, rejected: 0 });
-    expect((await planner.post(`/api/line-imports/${res.body.id}/confirm`)).status).toBe(200);
+    expect((await users.planner.post(`/api/line-imports/${res.body.id}/confirm`)).status).toBe(200);
     const [one, two] = await linesNamed(p);
     expect(one).toMatchObject({ material: 'CPVC', schedule: null, sdr: 21, nominalSize: '2', nominalSizeIn: 2, designPressurePsi: 145, designTemperatureF: 104, drawingRef: null });
     expect(two).toMatchObject({ material: 'ABS', schedule: '40', nominalSize: '3/4', designPressurePsi: 100.1, designTemperatureF: 68 });
@@ -134,7 +128,7 @@ describe('previewing a lines file', () => {
     const sheet = await upload(`${p}.xlsx`, 'PK\u0003\u0004');
     expect(sheet.status).toBe(400);
     expect(sheet.body.error.message).toMatch(/is not a CSV file/);
-    const none = await planner.post('/api/line-imports', {});
+    const none = await users.planner.post('/api/line-imports', {});
     expect(none.status).toBe(400);
     expect(none.body.error.message).toMatch(/Choose a CSV file/);
     expect(await LineImport.count({ where: { filename: { [Op.startsWith]: p } } })).toBe(0);
@@ -172,7 +166,7 @@ describe('confirming an import', () => {
     const p = testPrefix('CONF');
     await registerHas(p, [lineRow(`${p}-1`)]);
     const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { nominal_size: '2', drawing: 'MRW-P&ID-104-03' }), lineRow(`${p}-2`, { material: 'CPVC', design_temperature_f: '180' }), lineRow(`${p}-3`, { material: 'wood' })]));
-    const res = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    const res = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
 
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ status: 'applied', progress: 100, counts: { new: 1, changed: 1, unchanged: 0, rejected: 1 } });
@@ -193,15 +187,15 @@ describe('confirming an import', () => {
     const header = ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f'];
     const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { design_pressure_psi: '120' })], header));
     expect((await rowsOf(up.body.id))[0].changes).toEqual({ designPressurePsi: { from: 150, to: 120 } });
-    await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
     expect(await linesNamed(p)).toMatchObject([{ designPressurePsi: 120, notes: 'keep me', drawingRef: 'MRW-P&ID-104-02' }]);
   });
 
   it('confirming twice is refused (409) and writes nothing more', async () => {
     const p = testPrefix('TWICE');
     const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`)]));
-    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
-    const again = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
+    const again = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
     expect(again.status).toBe(409);
     expect(again.body.error.message).toBe('This import has already been confirmed.');
     expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(1);
@@ -211,8 +205,8 @@ describe('confirming an import', () => {
     const p = testPrefix('STALE');
     const first = await upload(`${p}-a.csv`, toCsv([lineRow(`${p}-1`, { service: 'Brine' })]));
     const second = await upload(`${p}-b.csv`, toCsv([lineRow(`${p}-1`, { service: 'RO permeate' })]));
-    expect((await planner.post(`/api/line-imports/${second.body.id}/confirm`)).status).toBe(200);
-    const res = await planner.post(`/api/line-imports/${first.body.id}/confirm`);
+    expect((await users.planner.post(`/api/line-imports/${second.body.id}/confirm`)).status).toBe(200);
+    const res = await users.planner.post(`/api/line-imports/${first.body.id}/confirm`);
     expect(res.status).toBe(409);
     expect(res.body.error).toEqual({ code: 'stale_preview', message: `The register changed since this preview ("${p}-b.csv" was applied after it); upload the file again.` });
     expect(await linesNamed(p)).toMatchObject([{ service: 'RO permeate' }]);
@@ -229,7 +223,7 @@ describe('confirming an import', () => {
       if new.line_number = '${p}-15' then raise exception 'line % refused by a test trigger', new.line_number; end if; return new; end $$`);
     await sequelize.query(`create trigger ${fn} before insert or update on lines for each row execute function ${fn}()`);
     try {
-      const res = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+      const res = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
       expect(res.status).toBe(422);
       expect(res.body.error.code).toBe('import_failed');
       expect(res.body.error.message).toMatch(/^Nothing was written: the database refused the import \(line .*-15 refused by a test trigger\)\. The register is as it was before/);
@@ -237,15 +231,15 @@ describe('confirming an import', () => {
       await sequelize.query(`drop trigger ${fn} on lines; drop function ${fn}()`);
     }
     expect(await linesNamed(p)).toMatchObject([{ lineNumber: `${p}-1`, service: 'Sulphuric acid 93%' }]);
-    const imp = await planner.get(`/api/line-imports/${up.body.id}`);
+    const imp = await users.planner.get(`/api/line-imports/${up.body.id}`);
     expect(imp.body).toMatchObject({ status: 'failed', appliedAt: null, error: expect.stringMatching(/^Nothing was written/) });
     expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(0);
-    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).body.error.message).toMatch(/^This import failed and cannot be confirmed/);
+    expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).body.error.message).toMatch(/^This import failed and cannot be confirmed/);
   });
 
   it('an import that is not there answers 404, and a malformed id 400', async () => {
-    expect((await planner.get('/api/line-imports/00000000-0000-4000-8000-000000000000')).status).toBe(404);
-    expect((await planner.post('/api/line-imports/not-an-id/confirm')).status).toBe(400);
+    expect((await users.planner.get('/api/line-imports/00000000-0000-4000-8000-000000000000')).status).toBe(404);
+    expect((await users.planner.post('/api/line-imports/not-an-id/confirm')).status).toBe(400);
   });
 });
 
@@ -282,7 +276,7 @@ describe('importing isolation points', () => {
       [{ column: 'kind', message: '"gate" is not a kind of isolation point (valve, blind or disconnect).' }],
       [{ column: 'normal_position', message: 'A valve stands open or closed; "installed" is not one of them.' }],
     ]);
-    expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
+    expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(200);
     const written = await IsolationPoint.findAll({ where: { tag: { [Op.startsWith]: p } }, include: ['line'], order: [['tag', 'ASC']] });
     expect(written.map((ip: any) => [ip.tag, ip.line.lineNumber, ip.kind, ip.normalPosition, ip.notes])).toEqual([
       [`${p}-B1`, `${p}-L2`, 'blind', 'removed', null],

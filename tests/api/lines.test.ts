@@ -1,22 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { lineDetailSchema, lineListResponseSchema } from '@shared/schemas/lines';
-import { startTestApp } from '../helpers/app';
+import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
 import { makeIsolationPoint, makeLines, uniquePrefix } from '../helpers/line-rows';
 
-let stop: () => Promise<void>;
-let planner: Browserless;
-beforeAll(async () => {
-  stop = await startTestApp();
-  planner = await signedIn('planner');
-});
-afterAll(() => stop());
+const users = useTestApp({ signIn: ['planner'] });
 
 /** A list filter of several values goes as one repeated parameter per value (`?area=A&area=B`), as the client sends it. */
 const toQuery = (query: Record<string, string | string[]>) =>
   new URLSearchParams(Object.entries(query).flatMap(([k, v]) => (Array.isArray(v) ? v : [v]).map((x): [string, string] => [k, x])));
 const list = async (query: Record<string, string | string[]>) => {
-  const res = await planner.get(`/api/lines?${toQuery(query)}`);
+  const res = await users.planner.get(`/api/lines?${toQuery(query)}`);
   expect(res.status).toBe(200);
   return lineListResponseSchema.parse(res.body);
 };
@@ -99,7 +93,7 @@ describe('reading the line register', () => {
     expect(numbers(await list({ area: north }))).toEqual([`${p}-001`]);
     expect(numbers(await list({ area: [north, caustic] }))).toEqual([`${p}-001`, `${p}-002`]);
     // The comma is part of the name, not a separator: the two halves are not filtered on.
-    const raw = await planner.get(`/api/lines?area=${encodeURIComponent(north)}&area=${encodeURIComponent(caustic)}`);
+    const raw = await users.planner.get(`/api/lines?area=${encodeURIComponent(north)}&area=${encodeURIComponent(caustic)}`);
     expect(raw.body.total).toBe(2);
   });
 
@@ -148,7 +142,7 @@ describe('reading the line register', () => {
   });
 
   it('a query the register does not know is refused with the field named', async () => {
-    const res = await planner.get('/api/lines?sort=colour&pageSize=1000');
+    const res = await users.planner.get('/api/lines?sort=colour&pageSize=1000');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad_request');
     expect(Object.keys(res.body.error.details)).toEqual(expect.arrayContaining(['sort', 'pageSize']));
@@ -156,11 +150,11 @@ describe('reading the line register', () => {
 
   it('a NUL character in a filter or the search is refused as a bad query, not a server error', async () => {
     for (const query of ['area=a%00b', 'size=2%00', 'search=a%00b']) {
-      const res = await planner.get(`/api/lines?${query}`);
+      const res = await users.planner.get(`/api/lines?${query}`);
       expect(res.status, query).toBe(400);
       expect(res.body.error.code).toBe('bad_request');
     }
-    const exported = await planner.get('/api/lines/export.csv?area=a%00b');
+    const exported = await users.planner.get('/api/lines/export.csv?area=a%00b');
     expect(exported.status).toBe(400);
   });
 });
@@ -172,7 +166,7 @@ describe('one line of the register', () => {
     await makeIsolationPoint(line, `${p}-V2`);
     await makeIsolationPoint(line, `${p}-B1`, 'blind');
     await makeIsolationPoint(line, `${p}-V1`);
-    const res = await planner.get(`/api/lines/${encodeURIComponent(line.lineNumber)}`);
+    const res = await users.planner.get(`/api/lines/${encodeURIComponent(line.lineNumber)}`);
     expect(res.status).toBe(200);
     const body = lineDetailSchema.parse(res.body);
     expect(body).toMatchObject({ lineNumber: line.lineNumber, sdr: 21, schedule: null, drawingRef: 'P&ID-7', isolationPointCount: 3 });
@@ -184,13 +178,13 @@ describe('one line of the register', () => {
     const p = uniquePrefix('ODD');
     const lineNumber = `${p}-2"-CW/101 A`;
     await makeLines(p, [{ lineNumber }]);
-    const res = await planner.get(`/api/lines/${encodeURIComponent(lineNumber)}`);
+    const res = await users.planner.get(`/api/lines/${encodeURIComponent(lineNumber)}`);
     expect(res.status).toBe(200);
     expect(res.body.lineNumber).toBe(lineNumber);
   });
 
   it('a line that is not in the register answers 404 naming it', async () => {
-    const res = await planner.get('/api/lines/NO-SUCH-LINE-9');
+    const res = await users.planner.get('/api/lines/NO-SUCH-LINE-9');
     expect(res.status).toBe(404);
     expect(res.body).toEqual({ error: { code: 'not_found', message: 'Line NO-SUCH-LINE-9 is not in the register.' } });
   });

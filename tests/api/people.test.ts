@@ -2,12 +2,10 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { Person } from '@server/db/models/person';
-import { startTestApp } from '../helpers/app';
+import { useTestApp } from '../helpers/app';
 import { signedIn, type Browserless } from '../helpers/browserless';
 
-let stop: () => Promise<void>;
-beforeAll(async () => (stop = await startTestApp()));
-afterAll(() => stop());
+useTestApp();
 
 // The demo accounts are shared with other test files: each test starts them with only their
 // directory roles, and puts back whatever it granted or withdrew.

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '@server/app';
 import { Person } from '@server/db/models/person';
 import { apiErrorSchema } from '@shared/schemas/errors';
+import { rolesFor, type Action } from '@shared/permissions';
 import { ROLE_LABELS, ROLES, type Role } from '@shared/schemas/roles';
 import { startTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
@@ -12,41 +13,44 @@ import { listRoutes } from '../helpers/app-routes';
  * Every route the app has, and who may call it. A route added anywhere without a row here fails
  * the completeness check below, and so does a row whose route is gone.
  *
- * `route` is the method and path as Express has it; `sample` the URL called (params filled in
- * with values that need no data: a 404 for an allowed role is fine, it is "not 401/403");
- * `body` is sent to writes and is chosen to fail validation harmlessly, so nothing is created.
- * `public` routes answer without a session; `endsSession` rows get a fresh sign-in of their own.
+ * `route` is the method and path as Express has it; `allow` the permission (shared/permissions.ts)
+ * the route is guarded by, or 'signed-in' for anyone with a session, or 'public'; `sample` the URL
+ * called (params filled in with values that need no data: a 404 for an allowed role is fine, it is
+ * "not 401/403"); `body` is sent to writes and is chosen to fail validation harmlessly, so nothing
+ * is created. `endsSession` rows get a fresh sign-in of their own.
  */
 interface Row {
   route: string;
-  may: readonly Role[] | 'public';
+  allow: Action | 'signed-in' | 'public';
   sample?: string;
   body?: unknown;
   endsSession?: boolean;
 }
 
-const EVERYONE = ROLES;
 const NO_ID = randomUUID();
 
 const TABLE: Row[] = [
-  { route: 'GET /api/health', may: 'public' },
-  { route: 'GET /auth/login', may: 'public' },
-  { route: 'GET /auth/callback', may: 'public' }, // without a sign-in under way it answers 400
-  { route: 'POST /auth/logout', may: 'public', endsSession: true }, // signing out without a session is harmless
-  { route: 'GET /api/me', may: EVERYONE },
-  { route: 'GET /api/people', may: ['admin'] },
-  { route: 'PUT /api/people/:id/roles', may: ['admin'], sample: `/api/people/${NO_ID}/roles`, body: { roles: ['not-a-role'] } },
-  { route: 'GET /api/lines', may: EVERYONE },
-  { route: 'GET /api/lines/export.csv', may: EVERYONE },
-  { route: 'GET /api/lines/:lineNumber', may: EVERYONE, sample: '/api/lines/RT-NO-SUCH-LINE' },
-  { route: 'POST /api/line-imports', may: ['planner', 'admin'], body: {} }, // no file: 400
-  { route: 'GET /api/line-imports/:id', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}` },
-  { route: 'GET /api/line-imports/:id/rows', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}/rows` },
-  { route: 'POST /api/line-imports/:id/confirm', may: ['planner', 'admin'], sample: `/api/line-imports/${NO_ID}/confirm`, body: {} },
-  { route: 'POST /api/calc/joint', may: EVERYONE, body: {} }, // an empty joint: 400
-  { route: 'GET /api/plant-settings', may: EVERYONE },
-  { route: 'PUT /api/plant-settings', may: ['admin'], body: { testCap: 'not-a-cap' } }, // 400, nothing changes
+  { route: 'GET /api/health', allow: 'public' },
+  { route: 'GET /auth/login', allow: 'public' },
+  { route: 'GET /auth/callback', allow: 'public' }, // without a sign-in under way it answers 400
+  { route: 'POST /auth/logout', allow: 'public', endsSession: true }, // signing out without a session is harmless
+  { route: 'GET /api/me', allow: 'signed-in' },
+  { route: 'GET /api/people', allow: 'people.manage' },
+  { route: 'PUT /api/people/:id/roles', allow: 'people.manage', sample: `/api/people/${NO_ID}/roles`, body: { roles: ['not-a-role'] } },
+  { route: 'GET /api/lines', allow: 'lines.read' },
+  { route: 'GET /api/lines/export.csv', allow: 'lines.read' },
+  { route: 'GET /api/lines/:lineNumber', allow: 'lines.read', sample: '/api/lines/RT-NO-SUCH-LINE' },
+  { route: 'POST /api/line-imports', allow: 'lines.import', body: {} }, // no file: 400
+  { route: 'GET /api/line-imports/:id', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}` },
+  { route: 'GET /api/line-imports/:id/rows', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}/rows` },
+  { route: 'POST /api/line-imports/:id/confirm', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}/confirm`, body: {} },
+  { route: 'POST /api/calc/joint', allow: 'calc.use', body: {} }, // an empty joint: 400
+  { route: 'GET /api/plant-settings', allow: 'plantSettings.read' },
+  { route: 'PUT /api/plant-settings', allow: 'plantSettings.edit', body: { testCap: 'not-a-cap' } }, // 400, nothing changes
 ];
+
+/** The roles a row lets through, read from the permission table. */
+const mayCall = (row: Row): readonly Role[] | 'public' => (row.allow === 'public' ? 'public' : row.allow === 'signed-in' ? ROLES : rolesFor(row.allow));
 
 /** Served by the app but not API routes: the client's pages, present when a build is there. */
 const NOT_API = new Set(['GET /{*splat}']);
@@ -92,7 +96,7 @@ describe('the role table lists every route, and only routes that exist', () => {
 
 describe('without a session', () => {
   for (const row of TABLE) {
-    if (row.may === 'public') {
+    if (row.allow === 'public') {
       it(`${row.route} answers without a sign-in`, async () => {
         expect([401, 403]).not.toContain((await call(new Browserless(), row)).status);
       });
@@ -110,7 +114,8 @@ describe.each(TABLE)('$route', (row) => {
   it.each(ROLES)('as %s', async (role) => {
     const b = row.endsSession ? await signedIn(role) : sessions.get(role)!;
     const res = await call(b, row);
-    if (row.may === 'public' || row.may.includes(role)) {
+    const may = mayCall(row);
+    if (may === 'public' || may.includes(role)) {
       expect([401, 403], `${role} should be let through (got ${res.status} ${JSON.stringify(res.body)})`).not.toContain(res.status);
       return;
     }
@@ -118,7 +123,7 @@ describe.each(TABLE)('$route', (row) => {
     expect(apiErrorSchema.strict().parse(res.body).error.code).toBe('forbidden');
     const message: string = res.body.error.message;
     expect(message).toMatch(/^Only an? .+ may do this/);
-    for (const allowed of row.may) expect(message).toContain(label(allowed));
+    for (const allowed of may) expect(message).toContain(label(allowed));
     expect(message).toContain(`your roles are ${label(role)}`);
   });
 });

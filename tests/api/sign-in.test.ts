@@ -1,12 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Person } from '@server/db/models/person';
 import { AuditEntry } from '@server/db/models/audit-entry';
-import { startTestApp } from '../helpers/app';
+import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
 
-let stop: () => Promise<void>;
-beforeAll(async () => (stop = await startTestApp()));
-afterAll(() => stop());
+useTestApp();
 
 describe('signing in through the identity provider', () => {
   it('sends the browser to the provider with PKCE S256, state and nonce', async () => {

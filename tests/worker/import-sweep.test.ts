@@ -1,17 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Job } from 'bullmq';
 import { Op } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { Line } from '@server/db/models/line';
 import { LineImport } from '@server/db/models/line-import';
 import { Person } from '@server/db/models/person';
-import { closeQueues, importJobState, importQueue } from '@server/queues';
-import { STOPPED_MESSAGE, recoverStalledImports, recoveryFor } from '@server/services/line-import-recovery';
-import { confirmImport, previewImport, uploadImport } from '@server/services/line-import-service';
+import { closeQueues } from '@server/queues/connection';
+import { importJobState, importQueue } from '@server/queues/line-imports';
+import { STOPPED_MESSAGE, recoverStalledImports, recoveryFor } from '@server/services/line-imports/recovery';
+import { confirmImport, previewImport, uploadImport } from '@server/services/line-imports/import-service';
 import type { Me } from '@shared/schemas/roles';
 import { startWorkers } from '../../worker/workers';
-import { processImportSweep } from '../../worker/processors/import-sweep';
+import { processSweep } from '../../worker/processors/sweep';
 import { lineRow, testPrefix, toCsv, waitFor } from '../helpers/import-csv';
 
 // Workers are started only once the stuck state is set up, so no worker can take a job first.
@@ -31,7 +31,7 @@ afterAll(async () => {
 
 const statusOf = async (id: string) => (await LineImport.findByPk(id))!;
 const linesWith = (p: string) => Line.count({ where: { lineNumber: { [Op.startsWith]: p } } });
-const sweep = () => processImportSweep({ data: {} } as Job);
+const sweep = () => processSweep({ data: {} });
 /** As if the row had been left alone past the sweep's grace period. */
 const age = (id: string) => sequelize.query(`update line_imports set updated_at = now() - interval '5 minutes' where id = $1`, { bind: [id] });
 

@@ -5,7 +5,7 @@ import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { Line } from '@server/db/models/line';
 import { LineImportRow } from '@server/db/models/line-import';
-import { closeQueues } from '@server/queues';
+import { closeQueues } from '@server/queues/connection';
 import { startWorkers } from '../../worker/workers';
 import { processImport } from '../../worker/processors/line-import';
 import { startTestApp } from '../helpers/app';

@@ -1,7 +1,10 @@
 import type { Job } from 'bullmq';
-import { sendMail } from '@server/services/mail-service';
-import { mailJobSchema } from '@shared/queues';
+import { composeMail } from '@server/mail/compose-mail';
+import { sendMail } from '@server/mail/send-mail';
+import { mailJobSchema } from '@server/queues/mail';
 
-export async function processMail(job: Job): Promise<void> {
-  await sendMail(mailJobSchema.parse(job.data));
+/** Renders the mail from the record it is about, and sends it; nobody to tell is no mail. */
+export async function processMail(job: Pick<Job, 'data'>): Promise<void> {
+  const mail = await composeMail(mailJobSchema.parse(job.data));
+  if (mail) await sendMail(mail);
 }

@@ -2,20 +2,20 @@
 // applied in the request; larger ones go through the worker, which calls the same functions.
 // previewImport and applyImport may run twice for one job: each is a no-op once its step is done.
 
-import { QueryTypes } from 'sequelize';
 import { config } from '@server/config';
 import { sequelize } from '@server/db/sequelize';
+import { IMPORT_CONFIRM_LOCK, IMPORT_LOCK_SPACE, lockForTransaction, lockRecordForTransaction } from '@server/db/locks';
 import { LineImport, LineImportRow } from '@server/db/models/line-import';
-import { Person } from '@server/db/models/person';
 import { AppError } from '@server/errors';
 import { logger } from '@server/logger';
-import { enqueueImport, enqueueMail } from '@server/queues';
+import { enqueueImport } from '@server/queues/line-imports';
+import { enqueueMail } from '@server/queues/mail';
 import type { ImportRowsResponse, LineImportDto, RowOutcome } from '@shared/schemas/line-imports';
 import type { Me } from '@shared/schemas/roles';
 import { decodeCsv, estimateRows, hasDataRows, readColumns } from './register-csv';
-import { buildPreview, countOutcomes, writePreviewRows } from './line-import-preview';
-import { appliedSince, applyRows, staleMessage } from './line-import-apply';
-import { IMPORT_LOCK_SPACE, describeFailure, progressWriter } from './line-import-shared';
+import { buildPreview, countOutcomes, writePreviewRows } from './preview';
+import { appliedSince, applyRows, staleMessage } from './apply';
+import { describeFailure, progressWriter } from './progress';
 
 /** `inline` forces the in-process path whatever the size (the demo loader and the bench use it). */
 export interface RunOptions {
@@ -76,14 +76,11 @@ export async function previewImport(id: string): Promise<void> {
     const { rows, previewedAt } = await buildPreview(imp.source, progress);
     await progress(40);
     await sequelize.transaction(async (t) => {
-      await sequelize.query('select pg_advisory_xact_lock($1, hashtext($2))', { bind: [IMPORT_LOCK_SPACE, id], transaction: t });
-      const [now] = await sequelize.query<{ status: string }>('select status from line_imports where id = $1', { bind: [id], type: QueryTypes.SELECT, transaction: t });
+      await lockRecordForTransaction(t, IMPORT_LOCK_SPACE, id);
+      const now = await LineImport.findByPk(id, { transaction: t });
       if (now?.status !== 'previewing') return;
       await writePreviewRows(id, rows, t, progress);
-      await sequelize.query(
-        `update line_imports set status = 'previewed', total_rows = $2, counts = $3::jsonb, progress = 100, previewed_at = $4, updated_at = now() where id = $1`,
-        { bind: [id, rows.length, JSON.stringify(countOutcomes(rows)), previewedAt], transaction: t },
-      );
+      await now.update({ status: 'previewed', totalRows: rows.length, counts: countOutcomes(rows), progress: 100, previewedAt }, { transaction: t });
     });
   } catch (err) {
     logger.warn({ err, importId: id }, 'line import preview failed');
@@ -92,7 +89,7 @@ export async function previewImport(id: string): Promise<void> {
 }
 
 async function markFailed(id: string, message: string): Promise<void> {
-  await sequelize.query(`update line_imports set status = 'failed', error = $2, updated_at = now() where id = $1`, { bind: [id, message] });
+  await LineImport.update({ status: 'failed', error: message }, { where: { id } });
 }
 
 export async function listImportRows(id: string, query: { page: number; pageSize: number; outcome?: RowOutcome }): Promise<ImportRowsResponse> {
@@ -109,8 +106,6 @@ export async function listImportRows(id: string, query: { page: number; pageSize
   };
 }
 
-const CONFIRM_LOCK = 73_201_002;
-
 function refuseUnlessPreviewed(imp: LineImport): void {
   if (imp.status === 'previewing') throw AppError.conflict(`The preview is still being made (${imp.progress}%); confirm it when it is ready.`);
   if (imp.status === 'applying' || imp.status === 'applied') throw AppError.conflict('This import has already been confirmed.');
@@ -124,7 +119,7 @@ function refuseUnlessPreviewed(imp: LineImport): void {
  */
 export async function confirmImport(me: Me, id: string, opts: RunOptions = {}): Promise<LineImportDto> {
   const imp = await sequelize.transaction(async (t) => {
-    await sequelize.query('select pg_advisory_xact_lock($1)', { bind: [CONFIRM_LOCK], transaction: t });
+    await lockForTransaction(t, IMPORT_CONFIRM_LOCK);
     const found = await LineImport.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!found) throw AppError.notFound('There is no such import; it may have been uploaded on another system.');
     refuseUnlessPreviewed(found);
@@ -146,33 +141,21 @@ export async function confirmImport(me: Me, id: string, opts: RunOptions = {}): 
 
 /** Writes a confirmed import in one transaction. A no-op unless 'applying'. `notify` mails the confirmer. */
 export async function applyImport(id: string, opts: { notify?: boolean } = {}): Promise<void> {
-  const imp = await LineImport.unscoped().findByPk(id);
-  if (!imp || imp.status !== 'applying') return;
+  const imp = await LineImport.findByPk(id, { attributes: ['status'] });
+  if (imp?.status !== 'applying') return;
   let applied = false;
   try {
-    applied = await sequelize.transaction((t) => applyRows(imp, t, progressWriter(id)));
+    applied = await sequelize.transaction((t) => applyRows(id, t, progressWriter(id)));
   } catch (err) {
     logger.warn({ err, importId: id }, 'line import apply failed');
-    const message = describeFailure(err, 'apply');
-    await markFailed(id, message);
-    if (opts.notify) await mailConfirmer(imp, `Line register import failed: ${imp.filename}`, `${imp.filename} could not be written to the line register.\n\n${message}\n`);
+    await markFailed(id, describeFailure(err, 'apply'));
+    if (opts.notify) await mailConfirmer(id, 'failed');
     return;
   }
-  if (applied && opts.notify) {
-    const { new: added, changed, unchanged, rejected } = imp.counts;
-    await mailConfirmer(
-      imp,
-      `Line register import finished: ${added} new, ${changed} changed, ${unchanged} unchanged, ${rejected} skipped`,
-      `${imp.filename} has been written to the line register.\n\n` +
-        `  ${added} new\n  ${changed} changed\n  ${unchanged} unchanged (nothing to write)\n  ${rejected} skipped (rejected in the preview, not written)\n\n` +
-        `The import: ${config.origin}/imports/${imp.id}\n`,
-    );
-  }
+  if (applied && opts.notify) await mailConfirmer(id, 'applied');
 }
 
-/** Mails whoever confirmed the import; one mail per outcome however often it is asked for. */
-export async function mailConfirmer(imp: LineImport, subject: string, text: string): Promise<void> {
-  const person = imp.confirmedById ? await Person.findByPk(imp.confirmedById) : null;
-  if (!person?.email) return;
-  await enqueueMail({ to: person.email, subject, text }, `line-import-${imp.id}-${subject.includes('failed') ? 'failed' : 'applied'}`);
+/** Tells whoever confirmed the import how it ended; one mail per outcome however often it is asked for. */
+export async function mailConfirmer(importId: string, outcome: 'applied' | 'failed'): Promise<void> {
+  await enqueueMail({ purpose: outcome === 'applied' ? 'line-import-applied' : 'line-import-failed', recordId: importId });
 }

@@ -1,7 +1,6 @@
 import Papa from 'papaparse';
-import { QueryTypes } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
-import { lineOrder, lineWhere, type LineRow } from '@server/services/line-service';
+import { fetchLineExport, openLineExportCursor, type LineAttributes } from '@server/db/queries/lines';
 import type { LineExportQuery } from '@shared/schemas/lines';
 import { LINE_CSV_COLUMNS } from '@shared/schemas/line-imports';
 
@@ -24,15 +23,15 @@ export const FORMULA_LEAD = /^[=+\-@\t\r\n\0]/;
 const UNPARSE = { delimiter: ',', newline: '\r\n', escapeFormulae: FORMULA_LEAD, header: false } as const;
 
 /** The register's schedule column as the importer reads it: "40", "80" or "SDR 21". */
-function scheduleCell(row: LineRow): string {
+function scheduleCell(row: LineAttributes): string {
   if (row.schedule) return row.schedule;
   return row.sdr === null ? '' : `SDR ${row.sdr}`;
 }
 
-function toCells(row: LineRow, withStatus: boolean): (string | number)[] {
+function toCells(row: LineAttributes, withStatus: boolean): (string | number)[] {
   const cells: (string | number)[] = [
-    row.line_number, row.area, row.service, row.material, scheduleCell(row), row.nominal_size,
-    row.design_pressure_psi, row.design_temperature_f, row.drawing_ref ?? '', row.notes ?? '',
+    row.lineNumber, row.area, row.service, row.material, scheduleCell(row), row.nominalSize,
+    row.designPressurePsi, row.designTemperatureF, row.drawingRef ?? '', row.notes ?? '',
   ];
   return withStatus ? [...cells, row.status] : cells;
 }
@@ -48,16 +47,12 @@ export function exportFilename(now: Date): string {
  */
 export async function* lineRegisterCsv(q: LineExportQuery): AsyncGenerator<string> {
   const fields = q.withStatus ? [...LINE_IMPORT_COLUMNS, 'status'] : [...LINE_IMPORT_COLUMNS];
-  const where = lineWhere(q);
   const transaction = await sequelize.transaction();
   try {
-    await sequelize.query(`declare line_export no scroll cursor for select l.* from lines l ${where.sql} order by ${lineOrder(q)}`, {
-      bind: where.bind,
-      transaction,
-    });
+    await openLineExportCursor(q, transaction);
     yield Papa.unparse([fields], UNPARSE) + '\r\n';
     for (;;) {
-      const rows = await sequelize.query<LineRow>(`fetch ${EXPORT_BATCH} from line_export`, { type: QueryTypes.SELECT, transaction });
+      const rows = await fetchLineExport(EXPORT_BATCH, transaction);
       if (rows.length === 0) break;
       yield Papa.unparse(rows.map((r) => toCells(r, q.withStatus)), UNPARSE) + '\r\n';
     }

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { demoPlant, toCsv } from '../../scripts/demo-plant';
+import { demoPlant, toCsv } from '../../../scripts/demo-plant';
 import { decodeCsv, estimateRows, normaliseHeader, readColumns, readRows, type Columns, type LineField, type PointField } from './register-csv';
 import { checkPointRow, diffValues, lineDiffFields, lineRowChecker, pointDiffFields, type LineValues, type PointValues } from './register-rows';
 

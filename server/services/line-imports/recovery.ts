@@ -6,14 +6,14 @@
 // the row on, marks the import failed. An 'applying' row after a finished job means the apply
 // transaction never committed (the commit is what sets 'applied'), so nothing was written.
 
-import { QueryTypes } from 'sequelize';
 import type { JobState } from 'bullmq';
 import { sequelize } from '@server/db/sequelize';
+import { IMPORT_LOCK_SPACE, REGISTER_LOCK, lockForTransaction, lockRecordForTransaction } from '@server/db/locks';
 import { LineImport } from '@server/db/models/line-import';
+import { importsLeftInProgress } from '@server/db/queries/line-imports';
 import { logger } from '@server/logger';
-import { enqueueImport, importJobState } from '@server/queues';
-import { mailConfirmer } from './line-import-service';
-import { IMPORT_LOCK_SPACE, REGISTER_LOCK } from './line-import-shared';
+import { enqueueImport, importJobState } from '@server/queues/line-imports';
+import { mailConfirmer } from './import-service';
 
 export const STOPPED_MESSAGE = 'The import stopped before it finished; nothing was written. Upload the file again.';
 
@@ -46,25 +46,17 @@ export interface SweepResult {
  */
 async function markStopped(id: string, status: InProgress): Promise<boolean> {
   return sequelize.transaction(async (t) => {
-    if (status === 'applying') await sequelize.query('select pg_advisory_xact_lock($1)', { bind: [REGISTER_LOCK], transaction: t });
-    else await sequelize.query('select pg_advisory_xact_lock($1, hashtext($2))', { bind: [IMPORT_LOCK_SPACE, id], transaction: t });
-    const changed = await sequelize.query<{ id: string }>(
-      `update line_imports set status = 'failed', error = $3, updated_at = now() where id = $1 and status = $2 returning id`,
-      { bind: [id, status, STOPPED_MESSAGE], type: QueryTypes.SELECT, transaction: t },
-    );
-    return changed.length > 0;
+    if (status === 'applying') await lockForTransaction(t, REGISTER_LOCK);
+    else await lockRecordForTransaction(t, IMPORT_LOCK_SPACE, id);
+    const [changed] = await LineImport.update({ status: 'failed', error: STOPPED_MESSAGE }, { where: { id, status }, transaction: t });
+    return changed > 0;
   });
 }
 
 /** One pass over the imports in progress; safe to run from several workers at once. */
 export async function recoverStalledImports(opts: { graceMs?: number } = {}): Promise<SweepResult> {
   const graceMs = opts.graceMs ?? RECOVERY_GRACE_MS;
-  const stuck = await sequelize.query<{ id: string; status: InProgress }>(
-    `select id, status from line_imports
-     where status in ('previewing', 'applying') and updated_at < now() - make_interval(secs => $1)
-     order by created_at`,
-    { bind: [graceMs / 1000], type: QueryTypes.SELECT },
-  );
+  const stuck = await importsLeftInProgress(graceMs);
   const result: SweepResult = { requeued: [], failed: [] };
   for (const { id, status } of stuck) {
     const job = { importId: id, step: status === 'previewing' ? 'preview' : 'apply' } as const;
@@ -77,8 +69,7 @@ export async function recoverStalledImports(opts: { graceMs?: number } = {}): Pr
     } else if (action === 'fail' && (await markStopped(id, status))) {
       result.failed.push(id);
       logger.warn({ importId: id, step: job.step, jobState: state }, 'line import job finished without finishing the import; marked failed');
-      const imp = status === 'applying' ? await LineImport.findByPk(id) : null;
-      if (imp) await mailConfirmer(imp, `Line register import failed: ${imp.filename}`, `${imp.filename} could not be written to the line register.\n\n${STOPPED_MESSAGE}\n`);
+      if (status === 'applying') await mailConfirmer(id, 'failed');
     }
   }
   return result;

@@ -2,15 +2,17 @@
 // line_import_rows set-based. The register is read in one query, under the register lock taken
 // shared, so `previewed_at` is exactly "the register as it stood at this moment".
 
-import { QueryTypes, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
+import { REGISTER_LOCK, lockForTransaction } from '@server/db/locks';
+import { databaseNow, knownLineNumbers, linesByNumber, pointsByTag, replacePreviewRows } from '@server/db/queries/line-imports';
 import type { ImportCounts, RowOutcome } from '@shared/schemas/line-imports';
 import { readColumns, readRows, type Columns, type LineField, type PointField, type RawRow } from './register-csv';
 import {
   lineRowChecker, checkPointRow, diffValues, lineDiffFields, pointDiffFields,
   type Changes, type Checked, type LineValues, type PointValues, type Problem,
 } from './register-rows';
-import { REGISTER_LOCK, CHUNK_ROWS, chunks, copyIn, copyText, type Progress } from './line-import-shared';
+import type { Progress } from './progress';
 
 export interface PreviewRow {
   rowNumber: number;
@@ -51,21 +53,11 @@ function outcomeOf<V extends object>(p: Parsed<V>, existing: V | undefined, fiel
   return { rowNumber: p.rowNumber, outcome: 'changed', key: p.key, data, changes, problems: null };
 }
 
-async function readRegister<T extends object>(sql: string, keys: string[], transaction: Transaction): Promise<T[]> {
-  return keys.length ? sequelize.query<T>(sql, { bind: [keys], type: QueryTypes.SELECT, transaction }) : [];
-}
-
-// Keys are joined as a set (not `= any($1)`): with the array bound, the planner sees its size and
-// hash-joins a large file against the register, or probes the index for a small one.
-const LINE_COLUMNS = `l.line_number as "lineNumber", area, service, material, schedule, sdr, nominal_size as "nominalSize",
-  nominal_size_in as "nominalSizeIn", design_pressure_psi as "designPressurePsi", design_temperature_f as "designTemperatureF",
-  drawing_ref as "drawingRef", notes`;
-
 async function previewLines(source: string, cols: Columns<LineField>, t: Transaction, progress: Progress): Promise<PreviewRow[]> {
   const parsed = checkAll(readRows(source, cols), lineRowChecker(cols), 'lineNumber', cols.header.lineNumber!, 'Line');
   await progress(30);
   const keys = parsed.flatMap((p) => (p.checked.ok ? [p.checked.values.lineNumber] : []));
-  const found = await readRegister<LineValues>(`select ${LINE_COLUMNS} from lines l join unnest($1::text[]) k(key) on l.line_number = k.key`, keys, t);
+  const found = await linesByNumber(keys, t);
   const existing = new Map(found.map((l) => [l.lineNumber, l]));
   const fields = lineDiffFields(cols);
   return parsed.map((p) => outcomeOf(p, p.checked.ok ? existing.get(p.checked.values.lineNumber) : undefined, fields));
@@ -75,13 +67,8 @@ async function previewPoints(source: string, cols: Columns<PointField>, t: Trans
   const parsed = checkAll(readRows(source, cols), (c) => checkPointRow(c, cols), 'tag', cols.header.tag!, 'Tag');
   await progress(30);
   const ok = parsed.flatMap((p) => (p.checked.ok ? [p.checked.values] : []));
-  const lines = await readRegister<{ lineNumber: string }>(`select l.line_number as "lineNumber" from lines l join unnest($1::text[]) k(key) on l.line_number = k.key`, [...new Set(ok.map((v) => v.lineNumber))], t);
-  const known = new Set(lines.map((l) => l.lineNumber));
-  const found = await readRegister<PointValues>(
-    `select ip.tag, l.line_number as "lineNumber", ip.kind, ip.normal_position as "normalPosition", ip.notes
-     from isolation_points ip join unnest($1::text[]) k(key) on ip.tag = k.key join lines l on l.id = ip.line_id`,
-    ok.map((v) => v.tag), t,
-  );
+  const known = await knownLineNumbers([...new Set(ok.map((v) => v.lineNumber))], t);
+  const found = await pointsByTag(ok.map((v) => v.tag), t);
   const existing = new Map(found.map((p) => [p.tag, p]));
   const unknownLine = (v: PointValues): Problem | null =>
     known.has(v.lineNumber) ? null : { column: cols.header.lineNumber!, message: `Line ${v.lineNumber} is not in the register; import the lines first.` };
@@ -93,12 +80,12 @@ async function previewPoints(source: string, cols: Columns<PointField>, t: Trans
 export async function buildPreview(source: string, progress: Progress): Promise<{ rows: PreviewRow[]; previewedAt: Date }> {
   const cols = readColumns(source);
   return sequelize.transaction(async (t) => {
-    await sequelize.query('select pg_advisory_xact_lock_shared($1)', { bind: [REGISTER_LOCK], transaction: t });
-    const [{ now }] = await sequelize.query<{ now: Date }>('select clock_timestamp() as now', { type: QueryTypes.SELECT, transaction: t });
+    await lockForTransaction(t, REGISTER_LOCK, { shared: true });
+    const now = await databaseNow(t);
     const rows = cols.kind === 'lines'
       ? await previewLines(source, cols as Columns<LineField>, t, progress)
       : await previewPoints(source, cols as Columns<PointField>, t, progress);
-    return { rows, previewedAt: now! };
+    return { rows, previewedAt: now };
   });
 }
 
@@ -108,24 +95,7 @@ export function countOutcomes(rows: readonly PreviewRow[]): ImportCounts {
   return counts;
 }
 
-/**
- * Replaces the import's preview rows (a re-run writes the same rows again) with one
- * `COPY … from stdin` on the transaction's connection, ~10k rows a batch. For 100,000 new rows
- * ~1.8 s against ~2.3 s for one jsonb_to_recordset insert … select per chunk; most of what is
- * left is the per-row foreign-key check on import_id (~0.7 s) and parsing the jsonb.
- */
+/** Replaces the import's preview rows in `t`, by COPY; progress runs from 40 to 99 %. */
 export async function writePreviewRows(importId: string, rows: readonly PreviewRow[], t: Transaction, progress: Progress): Promise<void> {
-  await sequelize.query('delete from line_import_rows where import_id = $1', { bind: [importId], transaction: t });
-  const id = copyText(importId);
-  const json = (v: unknown) => (v === null || v === undefined ? '\\N' : copyText(JSON.stringify(v)));
-  async function* batches() {
-    const parts = chunks(rows, CHUNK_ROWS);
-    for (const [i, part] of parts.entries()) {
-      let out = '';
-      for (const r of part) out += `${id}\t${r.rowNumber}\t${r.outcome}\t${copyText(r.key)}\t${json(r.data)}\t${json(r.changes)}\t${json(r.problems)}\n`;
-      yield out;
-      await progress(40 + Math.floor((59 * (i + 1)) / parts.length));
-    }
-  }
-  await copyIn(t, 'copy line_import_rows (import_id, row_number, outcome, key, data, changes, problems) from stdin', batches());
+  await replacePreviewRows(importId, rows, t, (done, of) => progress(40 + Math.floor((59 * done) / of)));
 }
