@@ -10,6 +10,8 @@ export interface CapturedMail {
   to: string[];
   subject: string;
   text: string;
+  /** The HTML body, or '' for a plain-text mail. */
+  html: string;
 }
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
@@ -29,6 +31,7 @@ export async function startMailSink(opts: { smtpPort: number; httpPort: number }
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
+            html: typeof parsed.html === 'string' ? parsed.html : '',
           });
           callback();
         })

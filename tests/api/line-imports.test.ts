@@ -6,6 +6,7 @@ import { IsolationPoint } from '@server/db/models/isolation-point';
 import { Line } from '@server/db/models/line';
 import { LineImport, LineImportRow } from '@server/db/models/line-import';
 import { importQueue } from '@server/queues/line-imports';
+import { mailJobId, mailQueue } from '@server/queues/mail';
 import { lineImportSchema } from '@shared/schemas/line-imports';
 import { useTestApp } from '../helpers/app';
 import { signedIn, type Browserless } from '../helpers/browserless';
@@ -286,5 +287,20 @@ describe('importing isolation points', () => {
     const moved = await upload(`${p}-points-2.csv`, toCsv([{ ...points[0]!, line_number: `${p}-L2`, normal_position: 'closed' }, points[1]!], POINT_HEADER));
     expect(moved.body.counts).toMatchObject({ changed: 1, unchanged: 1 });
     expect((await rowsOf(moved.body.id))[0].changes).toEqual({ lineNumber: { from: `${p}-L1`, to: `${p}-L2` }, normalPosition: { from: 'open', to: 'closed' } });
+  });
+});
+
+describe('a file within the inline limit', () => {
+  it('is previewed and written inside the requests, and nothing is queued for the worker', async () => {
+    const p = testPrefix('INLINE');
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`)]));
+    expect(up.body).toMatchObject({ status: 'previewed', counts: { new: 2 } });
+    const confirmed = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(confirmed.status).toBe(200);
+    expect(confirmed.body.status).toBe('applied');
+    expect(await linesNamed(p)).toHaveLength(2);
+    expect(await importQueue().getJob(`preview-${up.body.id}`)).toBeUndefined();
+    expect(await importQueue().getJob(`apply-${up.body.id}`)).toBeUndefined();
+    expect(await mailQueue().getJob(mailJobId({ purpose: 'line-import-applied', recordId: up.body.id }))).toBeUndefined();
   });
 });

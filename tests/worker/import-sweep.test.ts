@@ -5,24 +5,29 @@ import { AuditEntry } from '@server/db/models/audit-entry';
 import { Line } from '@server/db/models/line';
 import { LineImport } from '@server/db/models/line-import';
 import { Person } from '@server/db/models/person';
-import { closeQueues } from '@server/queues/connection';
+import { closeQueues, redis } from '@server/queues/connection';
 import { importJobState, importQueue } from '@server/queues/line-imports';
+import { SWEEP, sweepQueue } from '@server/queues/sweeps';
 import { STOPPED_MESSAGE, recoverStalledImports, recoveryFor } from '@server/services/line-imports/recovery';
 import { confirmImport, previewImport, uploadImport } from '@server/services/line-imports/import-service';
 import type { Me } from '@shared/schemas/roles';
 import { startWorkers } from '../../worker/workers';
 import { processSweep } from '../../worker/processors/sweep';
 import { lineRow, testPrefix, toCsv, waitFor } from '../helpers/import-csv';
+import { mailMentioning } from '../helpers/mail';
 
 // Workers are started only once the stuck state is set up, so no worker can take a job first.
 let workers: ReturnType<typeof startWorkers> | null = null;
 let me: Me;
+const SWEEP_PLANNER_MAIL = 'sweep.planner@marrowby.invalid';
 beforeAll(async () => {
   const [person] = await Person.findOrCreate({
     where: { issuer: 'linewright-test', subject: 'import-sweep' },
-    defaults: { issuer: 'linewright-test', subject: 'import-sweep', name: 'Import sweep test', email: null, lastSignInAt: null },
+    defaults: { issuer: 'linewright-test', subject: 'import-sweep', name: 'Import sweep test', email: SWEEP_PLANNER_MAIL, lastSignInAt: null },
   });
-  me = { id: person.id, name: person.name, email: null, roles: ['planner'] };
+  // A person with an address, so the sweep's mail to whoever confirmed really goes somewhere.
+  await person.update({ email: SWEEP_PLANNER_MAIL });
+  me = { id: person.id, name: person.name, email: SWEEP_PLANNER_MAIL, roles: ['planner'] };
 });
 afterAll(async () => {
   await workers?.close();
@@ -100,8 +105,39 @@ describe('the import sweep', () => {
     expect(await linesWith(`${p}-`)).toBe(0);
     expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: id } })).toBe(0);
 
+    // The planner who confirmed it is told, once, in plain text and HTML, with the reason.
+    const [mail, ...more] = await waitFor('the failure mail', () => mailMentioning(`${p}.csv`), (m) => m.length > 0);
+    expect(mail!.to).toEqual([SWEEP_PLANNER_MAIL]);
+    expect(mail!.subject).toBe(`Line register import failed: ${p}.csv`);
+    expect(mail!.text).toContain(STOPPED_MESSAGE);
+    expect(mail!.html).toContain('could not be written to the line register');
+    expect(more).toEqual([]);
+    await sweep(); // sweeping again finds nothing to do and sends nothing more
+    expect(await mailMentioning(`${p}.csv`)).toHaveLength(1);
+
     // The kind is no longer busy: a new file can be confirmed.
     const again = await uploadImport(me, { filename: `${p}-again.csv`, buffer: Buffer.from(toCsv([lineRow(`${p}-again`)])) });
     expect((await confirmImport(me, again.id)).status).toBe('applied');
+  });
+});
+
+describe('the sweep schedule', () => {
+  it('comes back after Redis is flushed under a running worker, and the sweep then recovers what the flush lost', async () => {
+    await workers?.close();
+    workers = startWorkers({ sweepWatchMs: 200 });
+    await waitFor('the schedule', () => sweepQueue().getJobScheduler(SWEEP), (s) => !!s);
+
+    // A large import the worker previews; then, as if confirmed and its apply job lost, it waits for ever.
+    const p = testPrefix('FLUSH');
+    const up = await uploadImport(me, { filename: `${p}.csv`, buffer: Buffer.from(toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`)))) });
+    await waitFor('the preview', () => statusOf(up.id), (imp) => imp.status === 'previewed');
+    await LineImport.update({ status: 'applying', confirmedById: me.id }, { where: { id: up.id } });
+    await age(up.id);
+
+    await redis().flushall();
+    expect(await sweepQueue().getJobScheduler(SWEEP)).toBeFalsy();
+    await waitFor('the schedule to come back', () => sweepQueue().getJobScheduler(SWEEP), (s) => !!s, 10_000);
+    await waitFor('the lost apply to be recovered and run', () => statusOf(up.id), (imp) => imp.status === 'applied', 30_000);
+    expect(await linesWith(`${p}-`)).toBe(60);
   });
 });

@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Job } from 'bullmq';
 import { Op } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
@@ -8,37 +7,27 @@ import { LineImportRow } from '@server/db/models/line-import';
 import { closeQueues } from '@server/queues/connection';
 import { startWorkers } from '../../worker/workers';
 import { processImport } from '../../worker/processors/line-import';
-import { startTestApp } from '../helpers/app';
-import { signedIn, type Browserless } from '../helpers/browserless';
-import { TEST_PORTS } from '../helpers/ports';
+import { useTestApp } from '../helpers/app';
+import { mailMentioning } from '../helpers/mail';
 import { lineRow, testPrefix, toCsv, waitFor } from '../helpers/import-csv';
 
-let stop: () => Promise<void>;
+const users = useTestApp({ signIn: ['planner'] });
 let workers: ReturnType<typeof startWorkers>;
-let planner: Browserless;
-beforeAll(async () => {
-  stop = await startTestApp();
-  workers = startWorkers();
-  planner = await signedIn('planner');
-});
+beforeAll(() => void (workers = startWorkers()));
 afterAll(async () => {
   await workers.close();
   await closeQueues();
-  await stop();
 });
 
-const importOf = (id: string) => async () => (await planner.get(`/api/line-imports/${id}`)).body;
-const mailAbout = async (filename: string) => {
-  const all = (await (await fetch(`http://127.0.0.1:${TEST_PORTS.mailHttp}/messages`)).json()) as { to: string[]; subject: string; text: string }[];
-  return all.filter((m) => m.text.includes(filename));
-};
-const runAgain = (importId: string, step: 'preview' | 'apply') => processImport({ data: { importId, step } } as Job);
+const importOf = (id: string) => async () => (await users.planner.get(`/api/line-imports/${id}`)).body;
+const mailAbout = mailMentioning;
+const runAgain = (importId: string, step: 'preview' | 'apply') => processImport({ data: { importId, step } });
 
 describe('a large import goes through the worker', () => {
   it('is previewed and applied by the worker, progress reaches 100, and the planner who confirmed gets a mail', async () => {
     const p = testPrefix('WRK');
     const file = `${p}.csv`;
-    const up = await planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${String(i).padStart(3, '0')}`, i === 7 ? { material: 'glass' } : {}))));
+    const up = await users.planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${String(i).padStart(3, '0')}`, i === 7 ? { material: 'glass' } : {}))));
     expect(up.status).toBe(201);
     expect(up.body.status).toBe('previewing');
 
@@ -46,7 +35,7 @@ describe('a large import goes through the worker', () => {
     expect(previewed).toMatchObject({ status: 'previewed', progress: 100, totalRows: 60, counts: { new: 59, changed: 0, unchanged: 0, rejected: 1 } });
     expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(60);
 
-    const confirm = await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    const confirm = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
     expect(confirm.status).toBe(202);
     expect(confirm.body).toMatchObject({ status: 'applying', progress: 0 });
     const applied = await waitFor('the apply', importOf(up.body.id), (b) => b.status !== 'applying');
@@ -64,7 +53,7 @@ describe('a large import goes through the worker', () => {
   it('shows the apply progress while its transaction is still open', async () => {
     const p = testPrefix('PROG');
     const rows = Array.from({ length: 12_000 }, (_, i) => lineRow(`${p}-${String(i).padStart(5, "0")}`));
-    const up = await planner.upload('/api/line-imports', `${p}.csv`, toCsv(rows));
+    const up = await users.planner.upload('/api/line-imports', `${p}.csv`, toCsv(rows));
     await waitFor('the preview', importOf(up.body.id), (b) => b.status === 'previewed', 60_000);
     // A line in the second chunk of 10,000 holds its statement for a moment, so the first chunk's progress shows.
     const fn = `lw_test_slow_${p.replace(/\W/g, '_').toLowerCase()}`;
@@ -72,7 +61,7 @@ describe('a large import goes through the worker', () => {
       if new.line_number = '${p}-11000' then perform pg_sleep(1); end if; return new; end $$`);
     await sequelize.query(`create trigger ${fn} before insert on lines for each row execute function ${fn}()`);
     try {
-      expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(202);
+      expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(202);
       const midway = await waitFor('progress part-way', importOf(up.body.id), (b) => b.status !== 'applying' || (b.progress > 0 && b.progress < 100), 60_000);
       expect(midway.status).toBe('applying');
       expect(midway.progress).toBeGreaterThan(0);
@@ -89,12 +78,12 @@ describe('a large import goes through the worker', () => {
   it('running a finished preview or apply job again changes nothing and sends no second mail', async () => {
     const p = testPrefix('AGAIN');
     const file = `${p}.csv`;
-    const up = await planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 55 }, (_, i) => lineRow(`${p}-${i}`))));
+    const up = await users.planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 55 }, (_, i) => lineRow(`${p}-${i}`))));
     await waitFor('the preview', importOf(up.body.id), (b) => b.status === 'previewed');
     await runAgain(up.body.id, 'preview');
     expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(55);
 
-    await planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
     await waitFor('the apply', importOf(up.body.id), (b) => b.status === 'applied');
     await waitFor('the mail', () => mailAbout(file), (m) => m.length === 1);
     const before = (await Line.findOne({ where: { lineNumber: `${p}-0` } }))!.updatedAt;
@@ -111,14 +100,14 @@ describe('a large import goes through the worker', () => {
   it('a failed apply in the worker writes nothing, marks the import failed and tells the planner', async () => {
     const p = testPrefix('WFAIL');
     const file = `${p}.csv`;
-    const up = await planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))));
+    const up = await users.planner.upload('/api/line-imports', file, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))));
     await waitFor('the preview', importOf(up.body.id), (b) => b.status === 'previewed');
     const fn = `lw_test_refuse_${p.replace(/\W/g, '_').toLowerCase()}`;
     await sequelize.query(`create function ${fn}() returns trigger language plpgsql as $$ begin
       if new.line_number = '${p}-42' then raise exception 'line % refused by a test trigger', new.line_number; end if; return new; end $$`);
     await sequelize.query(`create trigger ${fn} before insert on lines for each row execute function ${fn}()`);
     try {
-      expect((await planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(202);
+      expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(202);
       const failed = await waitFor('the apply', importOf(up.body.id), (b) => b.status !== 'applying');
       expect(failed).toMatchObject({ status: 'failed', error: expect.stringMatching(/^Nothing was written: the database refused the import \(line .*-42 refused by a test trigger\)/) });
     } finally {
