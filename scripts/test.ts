@@ -13,6 +13,12 @@ import { TEST_PORTS } from '../tests/helpers/ports';
 
 /** `npm test`: throw-away PostgreSQL and Redis on ports of their own, every test, then clean up. */
 async function main(): Promise<number> {
+  if (!process.argv.includes('--serve')) {
+    // The layout rules and the types first: a break there fails the run before any service starts.
+    console.log('[linewright] lint (eslint) and type check (tsc)…');
+    runBin('lint', 'eslint', ['--max-warnings', '0', '.'], process.env);
+    runBin('type check', 'tsc', ['--noEmit', '-p', '.'], process.env);
+  }
   ensureDebianPackages(['postgresql', 'redis-server', 'chromium']);
   const tmp = mkdtempSync(path.join(os.tmpdir(), 'linewright-test-'));
   chmodSync(tmp, 0o755);

@@ -1,9 +1,8 @@
 import { Router } from 'express';
-import { sequelize } from '@server/db/sequelize';
+import { checkHealth } from '@server/services/health-service';
 
 export const healthRoutes = Router();
 
 healthRoutes.get('/', async (_req, res) => {
-  await sequelize.query('select 1');
-  res.json({ ok: true });
+  res.json(await checkHealth());
 });

@@ -1,11 +1,11 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { PlantSetting } from '@server/db/models/plant-setting';
 import { jointPicture, type JointSpecInput } from '@shared/trade';
 import { DEFAULT_VALUES, type CalculatorValues } from '@/features/calculator/form';
 import { differingSections, previewJoint } from '@/features/calculator/preview';
 import { useTestApp } from '../helpers/app';
-import { signedIn, type Browserless } from '../helpers/browserless';
+import { signedIn } from '../helpers/browserless';
 
 const plain: JointSpecInput = {
   material: 'PVC', schedule: 80, nominalSize: '2', designPressurePsi: 100, designTemperatureF: 73,

@@ -1,9 +1,8 @@
 import Papa from 'papaparse';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
 import { EXPORT_BATCH } from '@server/services/line-register-export';
 import { useTestApp } from '../helpers/app';
-import { Browserless, signedIn } from '../helpers/browserless';
 import { makeLines, uniquePrefix } from '../helpers/line-rows';
 
 // The columns the line importer reads, written out here so a rename on either side shows.

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Op } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
@@ -9,7 +9,7 @@ import { importQueue } from '@server/queues/line-imports';
 import { mailJobId, mailQueue } from '@server/queues/mail';
 import { lineImportSchema } from '@shared/schemas/line-imports';
 import { useTestApp } from '../helpers/app';
-import { signedIn, type Browserless } from '../helpers/browserless';
+import { signedIn } from '../helpers/browserless';
 import { POINT_HEADER, importRow, lineRow, testPrefix, toCsv, type CsvRow } from '../helpers/import-csv';
 
 const users = useTestApp({ signIn: ['planner'] });

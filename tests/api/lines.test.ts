@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { lineDetailSchema, lineListResponseSchema } from '@shared/schemas/lines';
 import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it } from 'vitest';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { Person } from '@server/db/models/person';
 import { useTestApp } from '../helpers/app';

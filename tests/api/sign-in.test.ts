@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Person } from '@server/db/models/person';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { useTestApp } from '../helpers/app';

@@ -48,7 +48,7 @@ export async function getImport(id: string): Promise<LineImportDto> {
 }
 
 /** Keeps the file's own name, without any folder part, as the planner will recognise it. */
-const cleanFilename = (name: string) => (name.split(/[\\/]/).pop() ?? '').replace(/[\u0000-\u001f]/g, '').slice(0, 200) || 'upload.csv';
+const cleanFilename = (name: string) => (name.split(/[\\/]/).pop() ?? '').replace(/\p{Cc}/gu, '').slice(0, 200) || 'upload.csv';
 
 /** Stores the file and previews it; the header is checked first, so a wrong file is refused whole (400). */
 export async function uploadImport(me: Me, file: { filename: string; buffer: Buffer }, opts: RunOptions = {}): Promise<LineImportDto> {

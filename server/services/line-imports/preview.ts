@@ -10,7 +10,7 @@ import type { ImportCounts, RowOutcome } from '@shared/schemas/line-imports';
 import { readColumns, readRows, type Columns, type LineField, type PointField, type RawRow } from './register-csv';
 import {
   lineRowChecker, checkPointRow, diffValues, lineDiffFields, pointDiffFields,
-  type Changes, type Checked, type LineValues, type PointValues, type Problem,
+  type Changes, type Checked, type PointValues, type Problem,
 } from './register-rows';
 import type { Progress } from './progress';
 
