@@ -9,7 +9,7 @@ import path from 'node:path';
 import { ensureDebianPackages } from '../scripts/lib/debian';
 import { pgBin, startPostgres } from '../scripts/lib/postgres';
 import { prng } from '../scripts/lib/prng';
-import { LINE_CSV_COLUMNS } from '../shared/schemas/line-imports';
+import { LINE_CSV_COLUMNS } from '../shared/schemas/register-columns';
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const PORT = Number(process.env.BENCH_PG_PORT ?? 54390);
@@ -56,7 +56,7 @@ async function run(url: string, tmp: string) {
   const { migrate } = await import('../server/db/migrate');
   const { sequelize } = await import('../server/db/sequelize');
   const { Person } = await import('../server/db/models/person');
-  const { uploadImport, confirmImport } = await import('../server/services/line-import-service');
+  const { uploadImport, confirmImport } = await import('../server/services/line-imports/import-service');
   await migrate();
   const person = await Person.create({ issuer: 'linewright', subject: 'bench', name: 'Bench', email: null, lastSignInAt: null });
   const me = { id: person.id, name: person.name, email: null, roles: ['planner' as const] };
@@ -76,8 +76,8 @@ async function run(url: string, tmp: string) {
   const productMs = previewMs + applyMs;
   console.log(`[bench] product path, new register: parse + preview ${seconds(previewMs)}, apply ${seconds(applyMs)}, total ${seconds(productMs)} (${JSON.stringify(applied.counts)})`);
 
-  const { readColumns, readRows } = await import('../server/services/register-csv');
-  const { lineRowChecker } = await import('../server/services/register-rows');
+  const { readColumns, readRows } = await import('../server/services/line-imports/register-csv');
+  const { lineRowChecker } = await import('../server/services/line-imports/register-rows');
   const [, jsMs] = await time(async () => {
     const cols = readColumns(text) as Parameters<typeof lineRowChecker>[0];
     const check = lineRowChecker(cols);

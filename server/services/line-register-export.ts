@@ -2,9 +2,9 @@ import Papa from 'papaparse';
 import { sequelize } from '@server/db/sequelize';
 import { fetchLineExport, openLineExportCursor, type LineAttributes } from '@server/db/queries/lines';
 import type { LineExportQuery } from '@shared/schemas/lines';
-import { LINE_CSV_COLUMNS } from '@shared/schemas/line-imports';
+import { LINE_CSV_COLUMNS } from '@shared/schemas/register-columns';
 
-/** The columns the line importer reads, in its order: an export re-imports unchanged. */
+/** The columns the line importer reads, in its order (the shared column table): an export re-imports unchanged. */
 export const LINE_IMPORT_COLUMNS = LINE_CSV_COLUMNS;
 
 export const EXPORT_BATCH = 5000;

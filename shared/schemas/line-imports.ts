@@ -41,9 +41,4 @@ export const importRowsQuerySchema = z.object({
 export const importRowsResponseSchema = z.object({ rows: z.array(importRowSchema), total: z.number() });
 export type ImportRowsResponse = z.infer<typeof importRowsResponseSchema>;
 
-/** The register files' column names in their usual order: the importer reads them, the export writes them. */
-export const LINE_CSV_COLUMNS = [
-  'line_number', 'area', 'service', 'material', 'schedule', 'nominal_size',
-  'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes',
-] as const;
-export const ISOLATION_POINT_CSV_COLUMNS = ['tag', 'line_number', 'kind', 'normal_position', 'notes'] as const;
+// The register files' columns (names, units, help) are in register-columns.ts.

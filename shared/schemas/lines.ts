@@ -1,6 +1,8 @@
 import { z } from 'zod';
+import { PIPE_MATERIALS } from '@shared/trade';
 
-export const PIPE_MATERIALS = ['PVC', 'CPVC', 'ABS'] as const;
+/** The trade's one list of pipe materials (shared/trade/pipe-materials.ts), offered here beside its schema. */
+export { PIPE_MATERIALS };
 export const pipeMaterialSchema = z.enum(PIPE_MATERIALS);
 export type PipeMaterial = z.infer<typeof pipeMaterialSchema>;
 

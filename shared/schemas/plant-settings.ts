@@ -1,9 +1,8 @@
 import { z } from 'zod';
-import { listCureSchedules, type TestCap as TradeTestCap } from '@shared/trade';
+import { listCureSchedules, TEST_CAPS, type TestCap } from '@shared/trade';
 
-/** How the hydrostatic test is capped by the weakest component (shared/trade/test-pressure.ts). */
-export const TEST_CAPS = ['rating', 'one-and-a-half-rating'] as const satisfies readonly TradeTestCap[];
-export type TestCap = (typeof TEST_CAPS)[number];
+/** How the hydrostatic test is capped by the weakest component: the trade's list (shared/trade/test-pressure.ts). */
+export { TEST_CAPS, type TestCap };
 
 export const TEST_CAP_LABELS: Record<TestCap, string> = {
   rating: "At the lowest component's rating (the stricter)",

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { CAUTION_STEPS, cautionsFor, DEFERENCE } from './cautions';
+import { CAUTION_STEPS, cautionsFor, DEFERENCE, needsChemicalCaution } from './cautions';
 
 describe('cautions', () => {
   it.each(CAUTION_STEPS)('every %s caution ends in deference to local codes, plant procedures and licensed engineering judgement', (step) => {
@@ -37,5 +37,32 @@ describe('cautions', () => {
 
   it('an unknown step shows every caution rather than none', () => {
     expect(cautionsFor('toString').length).toBeGreaterThan(5);
+  });
+});
+
+describe('which services get the chemical caution', () => {
+  it.each(['Sulphuric acid 93%', 'Hydrochloric acid 32%', 'Caustic soda 25%', 'Brine', 'Sodium hypochlorite 12.5%', 'Ferric chloride'])(
+    'common practice: "%s" gets the chemical caution',
+    (service) => {
+      expect(needsChemicalCaution(service)).toBe(true);
+    },
+  );
+
+  it.each(['Potable water', 'RO permeate', 'Process water', 'Chilled water', 'Hot DI water', 'Demineralized water', 'Service air', 'Drain', 'Vents', 'Condensate', 'water', '  Cooling water  '])(
+    'common practice: plain water, air, drain, vent, permeate or condensate ("%s") does not',
+    (service) => {
+      expect(needsChemicalCaution(service)).toBe(false);
+    },
+  );
+
+  it('common practice: a chemical with water in its name still gets the caution', () => {
+    expect(needsChemicalCaution('Water with 10% caustic')).toBe(true);
+    expect(needsChemicalCaution('Ammonia water')).toBe(true);
+  });
+
+  it('common practice: the net is wide, so a service the list does not name (instrument air, seawater) gets the caution too', () => {
+    expect(needsChemicalCaution('Instrument air')).toBe(true);
+    expect(needsChemicalCaution('Seawater')).toBe(true);
+    expect(needsChemicalCaution('')).toBe(true);
   });
 });

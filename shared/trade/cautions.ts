@@ -69,3 +69,12 @@ export function cautionsFor(step: CautionStep | string): Caution[] {
   const known = Object.hasOwn(BY_STEP, step) ? BY_STEP[step as Exclude<CautionStep, 'joint'>] : undefined;
   return unique(known ?? Object.values(CAUTIONS));
 }
+
+/**
+ * Whether a service name reads like a chemical rather than water or air: a deliberately wide net,
+ * because showing the chemical caution on a water line costs less than missing it on an acid line.
+ * Only a plain water, air, drain, vent, permeate or condensate service (with the listed words
+ * before it, such as "potable" or "RO") is left out; anything else gets the caution [practice].
+ */
+const NOT_CHEMICAL = /^(?:(?:potable|process|service|cooling|chilled|fire|raw|city|soft(?:ened)?|filtered|hot|cold|ro|di|deionized|demin(?:eralized)?|ultrapure|upw)\s+)*(?:water|air|drain|vent|permeate|condensate)s?$/i;
+export const needsChemicalCaution = (service: string): boolean => !NOT_CHEMICAL.test(service.trim());

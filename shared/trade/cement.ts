@@ -4,13 +4,13 @@
 // Body by largest size: regular ≤2", medium ≤6", heavy beyond [mfr].
 
 import { parseNominalSize, unknownSizeReason } from './nominal-size';
+import { parsePipeMaterial, type Material } from './pipe-materials';
 import { refuse, show, type Refusal } from './result';
 import { SOURCES } from './sources';
 
-export type PipeMaterialAny = 'PVC' | 'CPVC' | 'ABS';
 export type CementBody = 'regular' | 'medium' | 'heavy';
 
-export const CEMENT_FOR_MATERIAL: Readonly<Record<PipeMaterialAny, string>> = {
+export const CEMENT_FOR_MATERIAL: Readonly<Record<Material, string>> = {
   PVC: 'D2564',
   CPVC: 'F493',
   ABS: 'D2235',
@@ -18,7 +18,7 @@ export const CEMENT_FOR_MATERIAL: Readonly<Record<PipeMaterialAny, string>> = {
 export const PRIMER_STANDARD = 'F656';
 export const TRANSITION_CEMENT = 'D3138';
 /** Materials the transition cement joins (ABS to PVC). */
-const TRANSITION_MATERIALS: readonly PipeMaterialAny[] = ['PVC', 'ABS'];
+const TRANSITION_MATERIALS: readonly Material[] = ['PVC', 'ABS'];
 
 const BODY_ORDER: readonly CementBody[] = ['regular', 'medium', 'heavy'];
 
@@ -36,13 +36,8 @@ export function cementBody(nominalSize: string): { ok: true; body: CementBody; s
   return { ok: true, body, source: SOURCES.cementBody };
 }
 
-function parsePipeMaterial(m: unknown): PipeMaterialAny | null {
-  const s = typeof m === 'string' ? m.trim().toUpperCase() : '';
-  return s === 'PVC' || s === 'CPVC' || s === 'ABS' ? s : null;
-}
-
 export interface CementCheckInput {
-  pipeMaterial: PipeMaterialAny | string;
+  pipeMaterial: Material | string;
   cementStandard: string;
   nominalSize: string;
   pressureService: boolean;
@@ -50,7 +45,7 @@ export interface CementCheckInput {
   cementBody?: CementBody;
 }
 
-function standardProblems(material: PipeMaterialAny, std: string, pressureService: boolean): string[] {
+function standardProblems(material: Material, std: string, pressureService: boolean): string[] {
   const wanted = CEMENT_FOR_MATERIAL[material];
   if (std === wanted) return [];
   if (std === TRANSITION_CEMENT) {
@@ -59,7 +54,7 @@ function standardProblems(material: PipeMaterialAny, std: string, pressureServic
     if (!TRANSITION_MATERIALS.includes(material)) problems.push(`ASTM D3138 joins ABS to PVC, not ${material}; use ASTM ${wanted}.`);
     return problems;
   }
-  const forOther = (Object.keys(CEMENT_FOR_MATERIAL) as PipeMaterialAny[]).find((k) => CEMENT_FOR_MATERIAL[k] === std);
+  const forOther = (Object.keys(CEMENT_FOR_MATERIAL) as Material[]).find((k) => CEMENT_FOR_MATERIAL[k] === std);
   if (forOther) return [`ASTM ${std} is the cement for ${forOther}, not ${material} pipe; use ASTM ${wanted}.`];
   if (std === PRIMER_STANDARD) return [`ASTM ${PRIMER_STANDARD} is a primer, not a cement; ${material} pipe needs ASTM ${wanted} cement.`];
   return [`ASTM ${std} is not a solvent cement standard for ${material} pipe; use ASTM ${wanted}.`];

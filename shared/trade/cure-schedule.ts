@@ -14,7 +14,8 @@ import {
   type CureScheduleTable, type PressureColumn, type SizeBand, type TemperatureBand,
 } from './cure-tables';
 import { parseNominalSize, unknownSizeReason } from './nominal-size';
-import { isFiniteNumber, parseMaterial, refuse, show, SUPERVISOR_MAY_ENTER, type Refusal } from './result';
+import { parseTabledMaterial } from './pipe-materials';
+import { isFiniteNumber, refuse, show, SUPERVISOR_MAY_ENTER, type Refusal } from './result';
 import { SOURCES } from './sources';
 
 export interface CureScheduleInput {
@@ -98,7 +99,7 @@ function humid(minutes: number, relativeHumidity: number): number {
 }
 
 function checkInputs(input: CureScheduleInput): { table: CureScheduleTable; inches: number } | Refusal {
-  if (!parseMaterial(input.material)) {
+  if (!parseTabledMaterial(input.material)) {
     return refuse(`No published set or cure schedule here for "${show(input.material)}": PVC and CPVC only. ${SUPERVISOR_MAY_ENTER}`);
   }
   const table = findCureSchedule(input.schedule);

@@ -2,9 +2,11 @@
 // with a second maker's where the reference brackets them. Where the reference shows no
 // bracket we take the second maker to agree with the first (an assumption, noted).
 // Between rows the factor of the NEXT HIGHER listed temperature applies [practice];
-// at or below 73 °F the factor is 1.00; above the maximum service temperature, none.
+// at or below 73 °F the factor is 1.00; above the maximum service temperature (pipe-materials.ts),
+// none. ABS has no de-rating table here: it is refused, not guessed.
 
-import type { Material } from './result';
+import { MAX_SERVICE_TEMPERATURE_F, parseTabledMaterial, type Material, type TabledMaterial } from './pipe-materials';
+import { show } from './result';
 
 export interface DeratingRow {
   temperatureF: number;
@@ -41,9 +43,7 @@ const CPVC: readonly DeratingRow[] = [
   { temperatureF: 200, factor: 0.2 },
 ];
 
-export const DERATING_TABLE: Readonly<Record<Material, readonly DeratingRow[]>> = { PVC, CPVC };
-
-export const MAX_SERVICE_TEMPERATURE_F: Readonly<Record<Material, number>> = { PVC: 140, CPVC: 200 };
+export const DERATING_TABLE: Readonly<Record<TabledMaterial, readonly DeratingRow[]>> = { PVC, CPVC };
 
 export type DeratingMaker = 'first' | 'second';
 
@@ -56,15 +56,17 @@ export function deratingFactor(
   temperatureF: number,
   maker: DeratingMaker = 'first',
 ): DeratingLookup {
-  const max = MAX_SERVICE_TEMPERATURE_F[material];
+  const tabled = parseTabledMaterial(material);
+  if (!tabled) return { ok: false, reason: `No de-rating table for "${show(material)}" here: PVC and CPVC only.` };
+  const max = MAX_SERVICE_TEMPERATURE_F[tabled];
   if (!Number.isFinite(temperatureF)) return { ok: false, reason: 'Temperature must be a number.' };
   if (temperatureF > max) {
     return {
       ok: false,
-      reason: `${temperatureF} °F is above the ${material} maximum service temperature of ${max} °F; no rating.`,
+      reason: `${temperatureF} °F is above the ${tabled} maximum service temperature of ${max} °F; no rating.`,
     };
   }
-  const row = DERATING_TABLE[material].find((r) => temperatureF <= r.temperatureF);
+  const row = DERATING_TABLE[tabled].find((r) => temperatureF <= r.temperatureF);
   if (!row) return { ok: false, reason: `No de-rating row for ${temperatureF} °F.` };
   const factor = maker === 'second' ? (row.secondMaker ?? row.factor) : row.factor;
   return { ok: true, factor, rowTemperatureF: row.temperatureF };

@@ -7,13 +7,15 @@ describe('the public face of the trade rules', () => {
     'socketMarks', 'dryFitCheck', 'chamferGuidance', 'cementCheck', 'cementBody', 'cementQuantities', 'applicatorSize',
     'crewAndTools', 'assemblyHoldSeconds', 'cementShelfLife', 'inToMm', 'mmToIn', 'psiToBar', 'barToPsi', 'psiToKpa',
     'kpaToPsi', 'fToC', 'cToF', 'parsePressure', 'parseLength', 'parseTemperature', 'cautionsFor', 'parseNominalSize',
-    'jointPicture',
+    'jointPicture', 'maxServiceTemperatureF', 'parsePipeMaterial', 'unknownSizeReason',
   ])('exports %s', (name) => {
     expect(typeof (trade as Record<string, unknown>)[name]).toBe('function');
   });
 
-  it('exports NOMINAL_SIZES and jointSpecSchema', () => {
+  it('exports NOMINAL_SIZES, the material and test-cap lists, and jointSpecSchema', () => {
     expect(trade.NOMINAL_SIZES).toHaveLength(20);
+    expect(trade.PIPE_MATERIALS).toEqual(['PVC', 'CPVC', 'ABS']);
+    expect(trade.TEST_CAPS).toEqual(['rating', 'one-and-a-half-rating']);
     expect(typeof trade.jointSpecSchema.safeParse).toBe('function');
   });
 

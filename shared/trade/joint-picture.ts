@@ -20,7 +20,7 @@ import { chamferGuidance, socketMarks } from './socket';
 import { TEST_FACTOR, testPressure } from './test-pressure';
 
 function ratings(spec: JointSpec) {
-  const base = { material: spec.material as 'PVC' | 'CPVC', schedule: spec.schedule, nominalSize: spec.nominalSize };
+  const base = { material: spec.material, schedule: spec.schedule, nominalSize: spec.nominalSize };
   const rating = pipeRating({ ...base, temperatureF: spec.designTemperatureF });
   const atTest = pipeRating({ ...base, temperatureF: spec.testTemperatureF ?? spec.designTemperatureF });
   return { rating, atTest };

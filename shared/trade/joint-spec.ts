@@ -3,9 +3,11 @@
 
 import { z } from 'zod';
 import { parseNominalSize } from './nominal-size';
+import { PIPE_MATERIALS } from './pipe-materials';
+import { TEST_CAPS } from './test-pressure';
 
 export const jointSpecSchema = z.object({
-  material: z.enum(['PVC', 'CPVC', 'ABS']),
+  material: z.enum(PIPE_MATERIALS),
   schedule: z.union([z.literal(40), z.literal(80)]),
   nominalSize: z.string().refine((s) => parseNominalSize(s) !== null, { message: 'Not a listed nominal pipe size' }),
   designPressurePsi: z.number().nonnegative(),
@@ -25,7 +27,7 @@ export const jointSpecSchema = z.object({
   cementBody: z.enum(['regular', 'medium', 'heavy']).optional(),
   pressureService: z.boolean().default(true),
   cureScheduleId: z.string().optional(),
-  testCap: z.enum(['rating', 'one-and-a-half-rating']).default('rating'),
+  testCap: z.enum(TEST_CAPS).default('rating'),
   chemicalService: z.boolean().default(true),
 });
 

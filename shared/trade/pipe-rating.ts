@@ -1,4 +1,4 @@
-// Pressure rating of PVC / CPVC pipe at a service temperature.
+// Pressure rating of PVC / CPVC pipe at a service temperature; ABS has no table here and is refused.
 // 73 °F rating: ASTM D1785 / F441 table lookup [pub]. The ISO equation is used only where the
 // table has no value (an SDR input), and the result says so.
 // Rounding: the de-rated psi is rounded to the NEAREST whole psi, because that is what the
@@ -10,10 +10,8 @@
 import { deratingFactor, type DeratingMaker } from './derating';
 import { pipeRow, wallAndRating } from './pipe-dimensions';
 import { unknownSizeReason } from './nominal-size';
-import {
-  isFiniteNumber, parseMaterial, parseSchedule, refuse, show,
-  type Material, type PipeSchedule, type Refusal,
-} from './result';
+import { parseTabledMaterial, type Material, type TabledMaterial } from './pipe-materials';
+import { isFiniteNumber, parseSchedule, refuse, show, type PipeSchedule, type Refusal } from './result';
 import { SOURCES } from './sources';
 
 /** Hydrostatic design stress for PVC 12454 (1120) and CPVC 23447, psi [pub]. */
@@ -68,7 +66,7 @@ export interface PipeRating {
 
 type Base = { ok: true; ratedPsiAt73: number; odIn: number; wallIn: number; source: string; fromEquation?: boolean };
 
-function baseRating(material: Material, input: PipeRatingInput): Base | Refusal {
+function baseRating(material: TabledMaterial, input: PipeRatingInput): Base | Refusal {
   const row = pipeRow(input.nominalSize);
   if (!row) return refuse(unknownSizeReason(input.nominalSize));
   if (input.sdr !== undefined) {
@@ -84,7 +82,7 @@ function baseRating(material: Material, input: PipeRatingInput): Base | Refusal 
 }
 
 export function pipeRating(input: PipeRatingInput): PipeRating | Refusal {
-  const material = parseMaterial(input.material);
+  const material = parseTabledMaterial(input.material);
   if (!material) return refuse(`No pressure rating for "${show(input.material)}": PVC and CPVC only.`);
   if (!isFiniteNumber(input.temperatureF)) return refuse('Service temperature must be a number (°F).');
   const b = baseRating(material, input);

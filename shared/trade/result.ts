@@ -18,14 +18,7 @@ export function isFiniteNumber(v: unknown): v is number {
   return typeof v === 'number' && Number.isFinite(v);
 }
 
-export type Material = 'PVC' | 'CPVC';
 export type PipeSchedule = 40 | 80;
-
-/** PVC and CPVC only: the reference has no ABS pressure or cure table. */
-export function parseMaterial(m: unknown): Material | null {
-  const s = typeof m === 'string' ? m.trim().toUpperCase() : '';
-  return s === 'PVC' || s === 'CPVC' ? s : null;
-}
 
 export function parseSchedule(s: unknown): PipeSchedule | null {
   const n = typeof s === 'string' ? Number(s.replace(/^sch(edule)?\s*/i, '')) : s;

@@ -10,6 +10,8 @@ export const SOURCES = {
   derating: "a manufacturer's installation manual, temperature de-rating factors [mfr]",
   deratingSecond: "a second manufacturer's installation manual, bracketed de-rating factors [mfr]",
   nextHigherRow: 'between rows, the factor of the next higher listed temperature [practice]',
+  maxServiceTemperature: "maximum service temperature PVC 140 °F, CPVC 200 °F, a manufacturer's installation manual [mfr]",
+  maxServiceTemperatureAbs: 'maximum service temperature ABS 180 °F, the commonly quoted limit [memory]',
   socketDepth:
     "ASTM D2466 (Sch 40) / ASTM D2467 (Sch 80) minimum socket depth, from a manufacturer's " +
     'installation manual cross-checked against ASTM D2468 [mfr]',

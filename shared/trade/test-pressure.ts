@@ -10,7 +10,9 @@
 import { isFiniteNumber, refuse, show, type Refusal } from './result';
 import { SOURCES } from './sources';
 
-export type TestCap = 'rating' | 'one-and-a-half-rating';
+/** How the test is capped by the weakest component: at its rating, or at 1.5 × it. A plant setting chooses. */
+export const TEST_CAPS = ['rating', 'one-and-a-half-rating'] as const;
+export type TestCap = (typeof TEST_CAPS)[number];
 
 export interface TestPressureInput {
   designPressurePsi: number;
@@ -50,7 +52,7 @@ export function checkTestMedium(medium: unknown): Refusal | null {
 export function testPressure(input: TestPressureInput): TestPressureResult | Refusal {
   const { designPressurePsi: design, lowestComponentRatingPsi: rating } = input;
   const cap: TestCap = input.cap ?? 'rating';
-  if (cap !== 'rating' && cap !== 'one-and-a-half-rating') return refuse(`Unknown test cap "${show(cap)}".`);
+  if (!(TEST_CAPS as readonly string[]).includes(cap)) return refuse(`Unknown test cap "${show(cap)}".`);
   if (!isFiniteNumber(design) || design <= 0) return refuse('Design pressure must be a positive number of psi.');
   if (!isFiniteNumber(rating) || rating <= 0) return refuse('The lowest component rating must be a positive number of psi.');
   const medium = checkTestMedium(input.medium);

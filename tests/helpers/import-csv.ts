@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { LineImport } from '@server/db/models/line-import';
-import { ISOLATION_POINT_CSV_COLUMNS, LINE_CSV_COLUMNS } from '@shared/schemas/line-imports';
+import { ISOLATION_POINT_CSV_COLUMNS, LINE_CSV_COLUMNS } from '@shared/schemas/register-columns';
 
 /** A prefix no other test shares, so each test's line numbers and tags are its own. */
 export const testPrefix = (what: string) => `${what}-${randomUUID().slice(0, 8).toUpperCase()}`;

@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
+import { ISOLATION_POINT_CSV_COLUMNS, LINE_CSV_COLUMNS } from '@shared/schemas/register-columns';
 import { demoPlant, toCsv } from '../../../scripts/demo-plant';
 import { decodeCsv, estimateRows, normaliseHeader, readColumns, readRows, type Columns, type LineField, type PointField } from './register-csv';
 import { checkPointRow, diffValues, lineDiffFields, lineRowChecker, pointDiffFields, type LineValues, type PointValues } from './register-rows';
@@ -40,6 +41,41 @@ describe('reading the header', () => {
     expect(readColumns('tag,line_number,kind,normal_position\n').kind).toBe('isolation-points');
     const cols = readColumns('line_number,area,service,material,schedule,nominal_size,design_pressure_kpa,design_temperature_c\n');
     expect(cols).toMatchObject({ kind: 'lines', pressureUnit: 'kPa', temperatureUnit: 'C' });
+  });
+
+  it('reads back every column the template and the export write, and the other names and units the table lists', () => {
+    expect(readColumns(`${LINE_CSV_COLUMNS.join(',')}\n`)).toMatchObject({ kind: 'lines', pressureUnit: 'psi', temperatureUnit: 'F' });
+    expect(readColumns(`${ISOLATION_POINT_CSV_COLUMNS.join(',')}\n`).kind).toBe('isolation-points');
+    const other = readColumns('line_number,area,service,material,schedule,nominal_size_in,design_pressure_barg,design_temperature_c,drawing_ref\n');
+    expect(other).toMatchObject({ pressureUnit: 'bar', temperatureUnit: 'C', header: { nominalSize: 'nominal_size_in', drawingRef: 'drawing_ref' } });
+    expect(readColumns('line_number,area,service,material,schedule,nominal_size,design_pressure_mpa,design_temperature_f\n').pressureUnit).toBe('MPa');
+  });
+
+  it('refuses a file whose header misses a column, repeats one or has one it does not know, in so many words', () => {
+    const refusal = (header: string) => {
+      try {
+        readColumns(`${header}\n`);
+      } catch (e) {
+        return (e as Error).message;
+      }
+      return 'accepted';
+    };
+    const list = 'line_number, area, service, material, schedule, nominal_size, design_pressure_psi (or _bar, _kpa, _mpa), design_temperature_f (or _c), drawing, notes';
+    expect(refusal('line_number,area,service,material,schedule,nominal_size')).toBe(
+      'A lines file needs the columns design_pressure_psi (or design_pressure_bar, design_pressure_kpa), design_temperature_f (or design_temperature_c); ' +
+        `the file does not have them. Columns: ${list}.`,
+    );
+    expect(refusal('tag,line_number,kind')).toBe(
+      'An isolation-points file needs the column normal_position; the file does not have it. Columns: tag, line_number, kind, normal_position, notes.',
+    );
+    expect(refusal(`${LINE_CSV_COLUMNS.join(',')},Design Temperature (C)`)).toBe(
+      'The columns "design_temperature_f" and "Design Temperature (C)" both give the design temperature; keep one of them.',
+    );
+    expect(refusal(`${LINE_CSV_COLUMNS.join(',')},colour`)).toBe(
+      `The column "colour" is not one Linewright knows. A lines file has the columns ${list}. Rename or remove it and upload again.`,
+    );
+    expect(refusal(`${LINE_CSV_COLUMNS.join(',')},constructor`)).toMatch(/^The column "constructor" is not one Linewright knows/);
+    expect(refusal(',,')).toBe(`The file is empty. The first row must name the columns: ${list}.`);
   });
 
   it('a column without a name is ignored, but a value under it is a problem of that row', () => {

@@ -1,55 +1,39 @@
 // Reading a register file: text, header, rows. Pure: no database, no clock.
 // Two kinds of file share the upload; a `tag` column makes it an isolation-points file.
 // Header names are matched case-insensitively, with spaces, brackets and ° folded, so
-// "Design Pressure (psi)" reads as design_pressure_psi. Units live in the header.
+// "Design Pressure (psi)" reads as design_pressure_psi. Units live in the header. Which columns
+// there are, and their other names and units, is shared/schemas/register-columns.ts.
 
 import Papa from 'papaparse';
 import { AppError } from '@server/errors';
 import type { ImportKind } from '@shared/schemas/line-imports';
+import {
+  columnList, REGISTER_COLUMNS, REGISTER_KEY_FIELD, type LineField, type PointField, type PressureUnit, type RegisterColumn,
+  type TemperatureUnit,
+} from '@shared/schemas/register-columns';
 
-export type PressureUnit = 'psi' | 'bar' | 'kPa' | 'MPa';
-export type TemperatureUnit = 'F' | 'C';
-
-export type LineField =
-  | 'lineNumber' | 'area' | 'service' | 'material' | 'schedule' | 'nominalSize'
-  | 'designPressure' | 'designTemperature' | 'drawingRef' | 'notes';
-export type PointField = 'tag' | 'lineNumber' | 'kind' | 'normalPosition' | 'notes';
+export type { LineField, PointField, PressureUnit, TemperatureUnit };
 
 interface HeaderSpec<F extends string> {
-  field: F;
+  column: RegisterColumn<F>;
   unit?: PressureUnit | TemperatureUnit;
 }
 
-const LINE_HEADERS: Record<string, HeaderSpec<LineField>> = {
-  line_number: { field: 'lineNumber' },
-  area: { field: 'area' },
-  service: { field: 'service' },
-  material: { field: 'material' },
-  schedule: { field: 'schedule' },
-  nominal_size: { field: 'nominalSize' },
-  nominal_size_in: { field: 'nominalSize' },
-  design_pressure_psi: { field: 'designPressure', unit: 'psi' },
-  design_pressure_psig: { field: 'designPressure', unit: 'psi' },
-  design_pressure_bar: { field: 'designPressure', unit: 'bar' },
-  design_pressure_barg: { field: 'designPressure', unit: 'bar' },
-  design_pressure_kpa: { field: 'designPressure', unit: 'kPa' },
-  design_pressure_mpa: { field: 'designPressure', unit: 'MPa' },
-  design_temperature_f: { field: 'designTemperature', unit: 'F' },
-  design_temperature_c: { field: 'designTemperature', unit: 'C' },
-  drawing: { field: 'drawingRef' },
-  drawing_ref: { field: 'drawingRef' },
-  notes: { field: 'notes' },
-};
-const LINE_REQUIRED: LineField[] = ['lineNumber', 'area', 'service', 'material', 'schedule', 'nominalSize', 'designPressure', 'designTemperature'];
+/** Every header name the importer accepts, from the shared column table: names, aliases, other units. */
+function acceptedHeaders<F extends string>(columns: readonly RegisterColumn<F>[]): ReadonlyMap<string, HeaderSpec<F>> {
+  const known = new Map<string, HeaderSpec<F>>();
+  for (const column of columns) {
+    for (const name of [column.column, ...(column.aliases ?? [])]) known.set(name, { column, unit: column.unit });
+    for (const alt of column.alternatives ?? []) {
+      for (const name of [alt.column, ...(alt.aliases ?? [])]) known.set(name, { column, unit: alt.unit });
+    }
+  }
+  return known;
+}
 
-const POINT_HEADERS: Record<string, HeaderSpec<PointField>> = {
-  tag: { field: 'tag' },
-  line_number: { field: 'lineNumber' },
-  kind: { field: 'kind' },
-  normal_position: { field: 'normalPosition' },
-  notes: { field: 'notes' },
-};
-const POINT_REQUIRED: PointField[] = ['tag', 'lineNumber', 'kind', 'normalPosition'];
+const LINE_HEADERS = acceptedHeaders(REGISTER_COLUMNS.lines);
+const POINT_HEADERS = acceptedHeaders(REGISTER_COLUMNS['isolation-points']);
+const POINTS_MARK = REGISTER_COLUMNS['isolation-points'].find((c) => c.field === REGISTER_KEY_FIELD['isolation-points'])!.column;
 
 /** How each field is headed in this file: the planner's own header text and the unit it names. */
 export interface Columns<F extends string> {
@@ -61,11 +45,6 @@ export interface Columns<F extends string> {
   byIndex: (F | null)[];
 }
 export type AnyColumns = Columns<LineField> | Columns<PointField>;
-
-export const LINES_HEADER_HELP =
-  'line_number, area, service, material, schedule, nominal_size, design_pressure_psi (or _bar, _kpa, _mpa), ' +
-  'design_temperature_f (or _c), drawing, notes';
-export const POINTS_HEADER_HELP = 'tag, line_number, kind, normal_position, notes';
 
 export function normaliseHeader(raw: string): string {
   return raw
@@ -97,46 +76,52 @@ function refuseHeader(message: string): never {
 export function readColumns(text: string): AnyColumns {
   const first = Papa.parse<string[]>(text, { delimiter: ',', preview: 1, skipEmptyLines: 'greedy' }).data[0] ?? [];
   const names = first.map(normaliseHeader);
-  if (names.every((n) => n === '')) refuseHeader(`The file is empty. The first row must name the columns: ${LINES_HEADER_HELP}.`);
-  const kind: ImportKind = names.includes('tag') ? 'isolation-points' : 'lines';
+  if (names.every((n) => n === '')) refuseHeader(`The file is empty. The first row must name the columns: ${columnList('lines')}.`);
+  const kind: ImportKind = names.includes(POINTS_MARK) ? 'isolation-points' : 'lines';
   return kind === 'lines'
-    ? mapColumns<LineField>(kind, first, names, LINE_HEADERS, LINE_REQUIRED, LINES_HEADER_HELP)
-    : mapColumns<PointField>(kind, first, names, POINT_HEADERS, POINT_REQUIRED, POINTS_HEADER_HELP);
+    ? mapColumns<LineField>(kind, first, names, LINE_HEADERS, REGISTER_COLUMNS.lines)
+    : mapColumns<PointField>(kind, first, names, POINT_HEADERS, REGISTER_COLUMNS['isolation-points']);
 }
 
 function mapColumns<F extends string>(
-  kind: ImportKind, raw: string[], names: string[], known: Record<string, HeaderSpec<F>>, required: F[], help: string,
+  kind: ImportKind, raw: string[], names: string[], known: ReadonlyMap<string, HeaderSpec<F>>, columns: readonly RegisterColumn<F>[],
 ): Columns<F> {
   const what = kind === 'lines' ? 'A lines file' : 'An isolation-points file';
+  const help = columnList(kind);
   const cols: Columns<F> = { kind, header: {}, pressureUnit: 'psi', temperatureUnit: 'F', byIndex: [] };
   names.forEach((name, i) => {
-    const spec = known[name];
+    const spec = known.get(name);
     const shown = (raw[i] ?? '').replace(/^\uFEFF/, '').trim();
     if (name === '') return void cols.byIndex.push(null);
     if (!spec) refuseHeader(`The column "${shown}" is not one Linewright knows. ${what} has the columns ${help}. Rename or remove it and upload again.`);
-    const earlier = cols.header[spec.field];
-    if (earlier) refuseHeader(`The columns "${earlier}" and "${shown}" both give the ${describeField(spec.field)}; keep one of them.`);
-    cols.header[spec.field] = shown;
-    if (spec.field === 'designPressure') cols.pressureUnit = spec.unit as PressureUnit;
-    if (spec.field === 'designTemperature') cols.temperatureUnit = spec.unit as TemperatureUnit;
-    cols.byIndex.push(spec.field);
+    const { field } = spec.column;
+    const earlier = cols.header[field];
+    if (earlier) refuseHeader(`The columns "${earlier}" and "${shown}" both give the ${nameInMessage(spec.column)}; keep one of them.`);
+    cols.header[field] = shown;
+    if (field === 'designPressurePsi') cols.pressureUnit = spec.unit as PressureUnit;
+    if (field === 'designTemperatureF') cols.temperatureUnit = spec.unit as TemperatureUnit;
+    cols.byIndex.push(field);
   });
-  const missing = required.filter((f) => !cols.header[f]);
+  const missing = columns.filter((c) => c.required && !cols.header[c.field]);
   if (missing.length) {
-    const list = missing.map((f) => headerExample(f)).join(', ');
+    const list = missing.map(suggestion).join(', ');
     refuseHeader(`${what} needs the column${missing.length > 1 ? 's' : ''} ${list}; the file does not have ${missing.length > 1 ? 'them' : 'it'}. Columns: ${help}.`);
   }
   return cols;
 }
 
-function describeField(field: string): string {
-  return field === 'designPressure' ? 'design pressure' : field === 'designTemperature' ? 'design temperature' : field;
+/**
+ * What the two-columns-for-one-field message calls the field: its label for a column read in a
+ * unit ("the design pressure"); otherwise, as this message always has, the field's own name.
+ */
+function nameInMessage(column: RegisterColumn): string {
+  return column.unit ? column.label : column.field;
 }
 
-function headerExample(field: string): string {
-  if (field === 'designPressure') return 'design_pressure_psi (or design_pressure_bar, design_pressure_kpa)';
-  if (field === 'designTemperature') return 'design_temperature_f (or design_temperature_c)';
-  return field.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+/** A missing column as the message suggests it: "design_pressure_psi (or design_pressure_bar, design_pressure_kpa)". */
+function suggestion(column: RegisterColumn): string {
+  const others = (column.alternatives ?? []).filter((a) => a.suggested !== false).map((a) => a.column);
+  return others.length ? `${column.column} (or ${others.join(', ')})` : column.column;
 }
 
 export type RawRow<F extends string> = Partial<Record<F, string>> & { __parsed_extra?: string[] };

@@ -1,19 +1,16 @@
 // Checking one register row and comparing it with the register. Pure: no database, no clock.
 // Every problem names the column as the planner headed it and says what to do.
 
-import { MAX_SERVICE_TEMPERATURE_F } from '@shared/trade/derating';
-import { nominalSizeLabel, parseNominalSize, unknownSizeReason } from '@shared/trade/nominal-size';
-import { fToC, parsePressure, parseTemperature } from '@shared/trade/units';
-import { ISOLATION_KINDS, ISOLATION_POSITIONS, PIPE_MATERIALS, type IsolationKind, type PipeMaterial } from '@shared/schemas/lines';
+import {
+  fToC, maxServiceTemperatureF, nominalSizeLabel, parseNominalSize, parsePipeMaterial, parsePressure, parseTemperature, unknownSizeReason,
+} from '@shared/trade';
+import { ISOLATION_KINDS, ISOLATION_POSITIONS, type IsolationKind, type PipeMaterial } from '@shared/schemas/lines';
 import type { Columns, LineField, PointField, PressureUnit, RawRow, TemperatureUnit } from './register-csv';
 
 export interface Problem {
   column: string;
   message: string;
 }
-
-/** PVC and CPVC from the de-rating reference; ABS 180 °F is the commonly quoted limit [memory]. */
-export const MAX_SERVICE_F: Record<PipeMaterial, number> = { ...MAX_SERVICE_TEMPERATURE_F, ABS: 180 };
 
 export interface LineValues {
   lineNumber: string;
@@ -93,8 +90,8 @@ function remembered<T>(read: (v: string) => Cell<T>): (v: string) => Cell<T> {
 }
 
 function readMaterial(v: string): Cell<PipeMaterial> {
-  const m = v.toUpperCase();
-  return (PIPE_MATERIALS as readonly string[]).includes(m) ? { ok: true, value: m as PipeMaterial } : fail(`"${v}" is not a material the register takes (PVC, CPVC or ABS).`);
+  const m = parsePipeMaterial(v);
+  return m ? { ok: true, value: m } : fail(`"${v}" is not a material the register takes (PVC, CPVC or ABS).`);
 }
 
 function readSchedule(v: string): Cell<{ schedule: string | null; sdr: number | null }> {
@@ -129,7 +126,7 @@ const temperatureReader = (unit: TemperatureUnit) => (v: string): Cell<{ f: numb
 };
 
 function aboveLimit(material: PipeMaterial, t: { f: number; said: string }): string | null {
-  const max = MAX_SERVICE_F[material];
+  const max = maxServiceTemperatureF(material);
   return t.f > max ? `${t.said} is above ${material}'s maximum service temperature of ${max} °F (${fmt(fToC(max))} °C); check the temperature or the material.` : null;
 }
 
@@ -155,10 +152,10 @@ export function lineRowChecker(cols: Columns<LineField>): (cells: RawRow<LineFie
     const mat = read('material', 'a material', material);
     const sch = read('schedule', 'a schedule or SDR', schedule);
     const sz = read('nominalSize', 'a nominal size', size);
-    const psi = read('designPressure', 'a design pressure', pressure);
-    const temp = read('designTemperature', 'a design temperature', temperature);
+    const psi = read('designPressurePsi', 'a design pressure', pressure);
+    const temp = read('designTemperatureF', 'a design temperature', temperature);
     const tooHot = mat && temp ? aboveLimit(mat, temp) : null;
-    if (tooHot) check.problem('designTemperature', tooHot);
+    if (tooHot) check.problem('designTemperatureF', tooHot);
     const drawingRef = check.text('drawingRef', 'a drawing', 200, false);
     const notes = check.text('notes', 'notes', 2000, false);
     if (check.problems.length) return { ok: false, problems: check.problems };

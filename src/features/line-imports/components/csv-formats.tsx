@@ -1,5 +1,6 @@
 import type { ImportKind } from '@shared/schemas/line-imports';
-import { TEMPLATE_COLUMNS, TEMPLATE_FILENAMES, templateHref } from '@/features/line-imports/csv-template';
+import { REGISTER_COLUMNS } from '@shared/schemas/register-columns';
+import { TEMPLATE_FILENAMES, templateHref } from '@/features/line-imports/csv-template';
 
 const TITLES: Record<ImportKind, string> = { lines: 'Lines file', 'isolation-points': 'Isolation-points file' };
 const SAMPLES: Record<ImportKind, string> = { lines: 'docs/sample-lines.csv', 'isolation-points': 'docs/sample-isolation-points.csv' };
@@ -20,13 +21,13 @@ export function CsvFormat({ kind }: { kind: ImportKind }) {
       </div>
       <table className="w-full text-left text-sm">
         <tbody>
-          {TEMPLATE_COLUMNS[kind].map((c) => (
-            <tr key={c.name} className="border-t border-ink/5 align-top">
+          {REGISTER_COLUMNS[kind].map((c) => (
+            <tr key={c.column} className="border-t border-ink/5 align-top">
               <td className="whitespace-nowrap py-1.5 pr-3">
-                <code className="rounded bg-paper-sunk px-1.5 py-0.5 font-sans text-[13px] font-semibold">{c.name}</code>
+                <code className="rounded bg-paper-sunk px-1.5 py-0.5 font-sans text-[13px] font-semibold">{c.column}</code>
               </td>
               <td className="py-1.5 text-ink-soft">
-                {c.what}
+                {c.help}
                 {!c.required && <span className="ml-1 text-ink-faint">(optional)</span>}
               </td>
             </tr>

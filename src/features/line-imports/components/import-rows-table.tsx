@@ -1,40 +1,46 @@
 import type { ImportKind, ImportRowDto } from '@shared/schemas/line-imports';
+import { columnOf, REGISTER_COLUMNS, REGISTER_KEY_FIELD } from '@shared/schemas/register-columns';
 import { OutcomeMark } from '@/features/line-imports/components/outcome-mark';
 
-// The template's column names where a field's name differs from it.
-const ALIASES: Record<string, string> = { drawingRef: 'drawing' };
-/** The planner's own word for a field: the CSV column name (designPressurePsi → design_pressure_psi). */
-export const columnName = (field: string) => ALIASES[field] ?? field.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+/**
+ * The planner's own word for a field: its column in the register file (designPressurePsi →
+ * design_pressure_psi, drawingRef → drawing); a field no column carries (sdr) in the same style.
+ */
+export const columnName = (kind: ImportKind, field: string) =>
+  columnOf(kind, field)?.column ?? field.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
 
 const show = (v: unknown) => (v === null || v === undefined || v === '' ? '(blank)' : typeof v === 'object' ? JSON.stringify(v) : String(v));
 
-// Fields in the order of the template; the database hands them back in its own order.
-const ORDER = ['area', 'service', 'material', 'schedule', 'sdr', 'nominalSize', 'designPressurePsi', 'designTemperatureF', 'drawingRef', 'lineNumber', 'kind', 'normalPosition', 'notes'];
-const rank = (k: string) => (ORDER.includes(k) ? ORDER.indexOf(k) : ORDER.length);
+// Fields in the order of the template, an SDR where the schedule is; the database hands them back in its own order.
+const ORDER: Record<ImportKind, string[]> = {
+  lines: REGISTER_COLUMNS.lines.flatMap((c): string[] => (c.field === 'schedule' ? ['schedule', 'sdr'] : [c.field])),
+  'isolation-points': REGISTER_COLUMNS['isolation-points'].map((c) => c.field),
+};
+const rank = (kind: ImportKind, k: string) => (ORDER[kind].includes(k) ? ORDER[kind].indexOf(k) : ORDER[kind].length);
 // nominalSizeIn repeats nominal_size in inches; the planner's file has only the size.
 const HIDDEN = new Set(['nominalSizeIn']);
 
-function Pairs({ data, skip }: { data: Record<string, unknown>; skip: string }) {
+function Pairs({ data, kind }: { data: Record<string, unknown>; kind: ImportKind }) {
   const entries = Object.entries(data)
-    .filter(([k, v]) => k !== skip && !HIDDEN.has(k) && v !== null && v !== undefined && v !== '')
-    .sort(([a], [b]) => rank(a) - rank(b));
+    .filter(([k, v]) => k !== REGISTER_KEY_FIELD[kind] && !HIDDEN.has(k) && v !== null && v !== undefined && v !== '')
+    .sort(([a], [b]) => rank(kind, a) - rank(kind, b));
   return (
     <ul className="flex flex-wrap gap-x-4 gap-y-0.5">
       {entries.map(([k, v]) => (
         <li key={k}>
-          <span className="text-ink-faint">{k === 'sdr' ? 'schedule' : columnName(k)}</span> {k === 'sdr' ? `SDR ${show(v)}` : show(v)}
+          <span className="text-ink-faint">{k === 'sdr' ? 'schedule' : columnName(kind, k)}</span> {k === 'sdr' ? `SDR ${show(v)}` : show(v)}
         </li>
       ))}
     </ul>
   );
 }
 
-function Changes({ changes }: { changes: NonNullable<ImportRowDto['changes']> }) {
+function Changes({ changes, kind }: { changes: NonNullable<ImportRowDto['changes']>; kind: ImportKind }) {
   return (
     <ul className="space-y-0.5">
       {Object.entries(changes).map(([k, c]) => (
         <li key={k}>
-          <code className="rounded bg-paper-sunk px-1.5 py-0.5 font-sans text-[13px] font-semibold">{columnName(k)}</code> <span className="text-ink-soft line-through decoration-ink-faint/60">{show(c.from)}</span>{' '}
+          <code className="rounded bg-paper-sunk px-1.5 py-0.5 font-sans text-[13px] font-semibold">{columnName(kind, k)}</code> <span className="text-ink-soft line-through decoration-ink-faint/60">{show(c.from)}</span>{' '}
           <span aria-label="becomes">→</span> <span className="font-semibold">{show(c.to)}</span>
         </li>
       ))}
@@ -54,16 +60,21 @@ function Problems({ problems }: { problems: NonNullable<ImportRowDto['problems']
   );
 }
 
-function What({ row, keyField }: { row: ImportRowDto; keyField: string }) {
+function What({ row, kind }: { row: ImportRowDto; kind: ImportKind }) {
   if (row.outcome === 'rejected') return <Problems problems={row.problems ?? []} />;
-  if (row.outcome === 'changed' && row.changes) return <Changes changes={row.changes} />;
+  if (row.outcome === 'changed' && row.changes) return <Changes changes={row.changes} kind={kind} />;
   if (row.outcome === 'unchanged') return <span className="text-ink-faint">Same as the register; left as it is</span>;
-  return row.data ? <Pairs data={row.data} skip={keyField} /> : null;
+  return row.data ? <Pairs data={row.data} kind={kind} /> : null;
 }
+
+/** The heading of the key column: the key field's label, "Line number" or "Tag". */
+const keyHeading = (kind: ImportKind) => {
+  const label = columnOf(kind, REGISTER_KEY_FIELD[kind])?.label ?? '';
+  return label.charAt(0).toUpperCase() + label.slice(1);
+};
 
 /** Every row of the file as the import will treat it; rejected rows stand out with their reasons. */
 export function ImportRowsTable({ rows, kind, written, dimmed }: { rows: ImportRowDto[]; kind: ImportKind; written?: boolean; dimmed?: boolean }) {
-  const keyField = kind === 'lines' ? 'lineNumber' : 'tag';
   return (
     <div className="overflow-x-auto rounded-xl border border-ink/10 bg-paper-raised shadow-sm">
       <table className={`w-full text-left text-sm transition-opacity ${dimmed ? 'opacity-60' : ''}`}>
@@ -71,7 +82,7 @@ export function ImportRowsTable({ rows, kind, written, dimmed }: { rows: ImportR
           <tr>
             <th scope="col" className="w-16 px-3 py-2.5 text-right">Row</th>
             <th scope="col" className="w-32 px-3 py-2.5">Outcome</th>
-            <th scope="col" className="w-40 px-3 py-2.5">{kind === 'lines' ? 'Line number' : 'Tag'}</th>
+            <th scope="col" className="w-40 px-3 py-2.5">{keyHeading(kind)}</th>
             <th scope="col" className="px-3 py-2.5">{written ? 'What the import did' : 'What the import will do'}</th>
           </tr>
         </thead>
@@ -84,7 +95,7 @@ export function ImportRowsTable({ rows, kind, written, dimmed }: { rows: ImportR
               </td>
               <td className="whitespace-nowrap px-3 py-3 font-semibold">{row.key ?? <span className="font-normal text-ink-faint">(none)</span>}</td>
               <td className="px-3 py-3">
-                <What row={row} keyField={keyField} />
+                <What row={row} kind={kind} />
               </td>
             </tr>
           ))}
