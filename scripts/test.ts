@@ -45,6 +45,7 @@ async function main(): Promise<number> {
       OIDC_ROLE_MAP: DEMO_ROLE_MAP,
       SMTP_URL: `smtp://127.0.0.1:${TEST_PORTS.smtp}`,
       IMPORT_INLINE_LIMIT: '50',
+      SIGN_IN_LIMIT_PER_MINUTE: '100000', // every test signs in from 127.0.0.1; the limit's own test sets its own
       CLIENT_DIST: clientDist,
     };
     const idp = await startIdentityFake({ port: TEST_PORTS.idp, appOrigin: origin, clientId: 'linewright', clientSecret: 'linewright-local-secret' });
@@ -68,7 +69,7 @@ async function main(): Promise<number> {
  * .tmp/test-env-<port>.sh, so a developer can run `set -a; . .tmp/test-env-5290.sh; npx vitest run <file>`.
  */
 async function serve(env: NodeJS.ProcessEnv): Promise<number> {
-  const keys = ['LW_TEST_PORT_BASE', 'NODE_ENV', 'LOG_LEVEL', 'PORT', 'APP_ORIGIN', 'DATABASE_URL', 'REDIS_URL', 'OIDC_ISSUER', 'OIDC_ROLE_MAP', 'SMTP_URL', 'IMPORT_INLINE_LIMIT', 'CLIENT_DIST'];
+  const keys = ['LW_TEST_PORT_BASE', 'NODE_ENV', 'LOG_LEVEL', 'PORT', 'APP_ORIGIN', 'DATABASE_URL', 'REDIS_URL', 'OIDC_ISSUER', 'OIDC_ROLE_MAP', 'SMTP_URL', 'IMPORT_INLINE_LIMIT', 'CLIENT_DIST', 'SIGN_IN_LIMIT_PER_MINUTE'];
   mkdirSync(path.join(ROOT, '.tmp'), { recursive: true });
   const file = path.join(ROOT, '.tmp', `test-env-${TEST_PORTS.app}.sh`);
   writeFileSync(file, keys.map((k) => `${k}='${env[k]}'`).join('\n') + '\n');

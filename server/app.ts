@@ -7,6 +7,7 @@ import helmet from 'helmet';
 import { config } from '@server/config';
 import { errorHandler, notFound } from '@server/middleware/error-handler';
 import { sameOrigin } from '@server/middleware/same-origin';
+import { limitPerAddress } from '@server/middleware/rate-limit';
 import { requireSignIn } from '@server/middleware/auth';
 import { authRoutes } from '@server/routes/auth-routes';
 import { meRoutes } from '@server/routes/me-routes';
@@ -19,13 +20,27 @@ import { healthRoutes } from '@server/routes/health-routes';
 
 const PgStore = connectPgSimple(session);
 
+export interface AppOptions {
+  /** Sign-in starts and callbacks per client address and minute, and the Redis that counts them (tests change them). */
+  signInLimit?: { perMinute: number; redisUrl: string };
+}
+
+/** Answers are about one person at one moment: no browser or proxy may keep them. */
+const noStore: express.RequestHandler = (_req, res, next) => {
+  res.set('Cache-Control', 'no-store');
+  next();
+};
+
 /** Builds the Express app: middleware and routers. It never listens; server/index.ts does. */
-export function createApp() {
+export function createApp(opts: AppOptions = {}) {
   const app = express();
+  const signInLimit = limitPerAddress({ name: 'sign-in', what: 'sign-in attempts', ...(opts.signInLimit ?? { perMinute: config.signInPerMinute, redisUrl: config.redisUrl }) });
+  app.locals.signInLimitConnected = signInLimit.connected;
   app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
   app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
-  app.use(express.json({ limit: '1mb' }));
+  app.use(['/api', '/auth'], noStore);
+  app.use(['/auth/login', '/auth/callback'], signInLimit); // before the session: a refused start stores nothing
   app.use(
     session({
       name: 'lw.sid', // its own name: on loopback the sign-in fake's cookies share the host
@@ -52,6 +67,7 @@ export function createApp() {
   const dist = path.resolve(config.clientDist);
   if (existsSync(path.join(dist, 'index.html'))) {
     app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    app.use('/assets', notFound); // a missing script or style is a 404, never the app's page
     app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: dist }));
   }
   app.use(notFound);

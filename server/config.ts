@@ -34,6 +34,7 @@ const envSchema = z
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
     IMPORT_INLINE_LIMIT: z.coerce.number().int().nonnegative().default(2000),
     CLIENT_DIST: z.string().default('dist'),
+    SIGN_IN_LIMIT_PER_MINUTE: z.coerce.number().int().positive().default(60),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV !== 'production') return;
@@ -74,6 +75,7 @@ function load() {
     logLevel: env.LOG_LEVEL,
     importInlineLimit: env.IMPORT_INLINE_LIMIT,
     clientDist: env.CLIENT_DIST,
+    signInPerMinute: env.SIGN_IN_LIMIT_PER_MINUTE,
   });
 }
 

@@ -4,6 +4,7 @@ import { createApp } from '@server/app';
 import { sequelize } from '@server/db/sequelize';
 import { closeQueues } from '@server/queues/connection';
 import { logger } from '@server/logger';
+import { closeRateLimiters } from '@server/middleware/rate-limit';
 
 const server = createServer(createApp());
 server.listen(config.port, config.host, () => logger.info({ origin: config.origin }, 'Linewright API listening'));
@@ -16,6 +17,7 @@ async function shutdown(signal: string) {
   server.close();
   server.closeIdleConnections();
   await closeQueues();
+  await closeRateLimiters();
   await sequelize.close();
   process.exit(0);
 }

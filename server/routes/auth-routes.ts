@@ -12,11 +12,17 @@ const destroy = (req: Request) => new Promise<void>((ok) => req.session.destroy(
 // Only paths inside the app may be returned to, never another site.
 const returnTo = z.object({ returnTo: z.string().regex(/^\/(?!\/)[^\s\\]*$/).optional().catch(undefined) });
 
+/** How long an unfinished sign-in's session lives. */
+export const SIGN_IN_PENDING_MS = 10 * 60 * 1000;
+
 export const authRoutes = Router();
 
 authRoutes.get('/login', validate({ query: returnTo }, async ({ query }, req, res) => {
   const { url, pending } = await beginSignIn(query.returnTo ?? '/');
   req.session.signIn = pending;
+  // An unfinished sign-in is kept only as long as a person takes to type a password; the session
+  // made at the callback gets the full length (a signed-in person's session keeps its own).
+  if (!req.session.personId) req.session.cookie.maxAge = SIGN_IN_PENDING_MS;
   await save(req);
   res.redirect(url);
 }));

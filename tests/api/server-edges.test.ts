@@ -1,0 +1,138 @@
+import { existsSync } from 'node:fs';
+import { request as httpRequest } from 'node:http';
+import path from 'node:path';
+import { gzipSync } from 'node:zlib';
+import request from 'supertest';
+import { describe, expect, it } from 'vitest';
+import { createApp } from '@server/app';
+import { config } from '@server/config';
+import { sequelize } from '@server/db/sequelize';
+import { SIGN_IN_PENDING_MS } from '@server/routes/auth-routes';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { useTestApp } from '../helpers/app';
+import { APP, Browserless } from '../helpers/browserless';
+import { TEST_PORTS } from '../helpers/ports';
+
+const users = useTestApp({ signIn: ['planner', 'fitter', 'admin'] });
+
+/** A request exactly as written, bytes and all, with the person's session and the app's origin. */
+function raw(opts: { method: string; path: string; as?: Browserless; headers?: Record<string, string>; body?: Buffer | string }) {
+  return new Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: any }>((resolve, reject) => {
+    const sid = opts.as?.cookie('lw.sid');
+    const req = httpRequest(
+      { host: '127.0.0.1', port: TEST_PORTS.app, method: opts.method, path: opts.path, headers: { origin: APP, ...(sid ? { cookie: `lw.sid=${sid}` } : {}), ...opts.headers } },
+      (res) => {
+        let text = '';
+        res.setEncoding('utf8').on('data', (c) => (text += c)).on('end', () => {
+          resolve({ status: res.statusCode!, headers: res.headers, body: res.headers['content-type']?.includes('json') ? JSON.parse(text) : text });
+        });
+      },
+    );
+    req.on('error', reject);
+    if (opts.body !== undefined) req.write(opts.body);
+    req.end();
+  });
+}
+
+const expectClientError = (res: { status: number; body: unknown }, status: number) => {
+  expect(res.status, JSON.stringify(res.body)).toBe(status);
+  expect(apiErrorSchema.strict().parse(res.body).error.message.length).toBeGreaterThan(10);
+};
+
+describe('a client’s mistake answers 4xx in the one error shape, never 500', () => {
+  it('a bad % escape in the address, signed in and signed out', async () => {
+    expectClientError(await raw({ method: 'GET', path: '/api/lines/%', as: users.planner }), 400);
+    expectClientError(await raw({ method: 'GET', path: '/api/lines/%E0%A4%A', as: users.planner }), 400);
+    expect((await raw({ method: 'GET', path: '/api/lines/%' })).status).toBe(401);
+  });
+
+  it('a multipart upload cut short, and one without a boundary', async () => {
+    const boundary = 'lw-cut-short';
+    const cut = `--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\nContent-Type: text/csv\r\n\r\nline_number,area\r\n100-A`;
+    const headers = { 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': String(Buffer.byteLength(cut)) };
+    expectClientError(await raw({ method: 'POST', path: '/api/line-imports', as: users.planner, headers, body: cut }), 400);
+    const noBoundary = { 'content-type': 'multipart/form-data', 'content-length': '5' };
+    expectClientError(await raw({ method: 'POST', path: '/api/line-imports', as: users.planner, headers: noBoundary, body: 'hello' }), 400);
+  });
+
+  it('a body in an encoding or charset the server does not read', async () => {
+    const body = JSON.stringify({ cureScheduleId: 'A', testCap: 'rating' });
+    const res = await raw({ method: 'PUT', path: '/api/plant-settings', as: users.admin, headers: { 'content-type': 'application/json', 'content-encoding': 'compress-9000' }, body });
+    expectClientError(res, 415);
+    expect(res.body.error.message).toContain('compress-9000');
+    const charset = await raw({ method: 'PUT', path: '/api/plant-settings', as: users.admin, headers: { 'content-type': 'application/json; charset=klingon-8' }, body });
+    expectClientError(charset, 415);
+    const broken = await raw({ method: 'PUT', path: '/api/plant-settings', as: users.admin, headers: { 'content-type': 'application/json', 'content-encoding': 'gzip' }, body: gzipSync(body).subarray(0, 12) });
+    expectClientError(broken, 400);
+  });
+});
+
+describe('a body is read only after the origin, sign-in and permission checks', () => {
+  it('an anonymous client’s malformed JSON is refused for the missing sign-in, unread', async () => {
+    const res = await raw({ method: 'POST', path: '/api/calc/joint', headers: { 'content-type': 'application/json' }, body: '{"not json' });
+    expect(res.status).toBe(401);
+    expect(res.body.error.code).toBe('unauthenticated');
+  });
+
+  it('a pipefitter’s body to the plant settings is refused for the role, unread; an admin’s is read', async () => {
+    const bad = { 'content-type': 'application/json' };
+    expect((await raw({ method: 'PUT', path: '/api/plant-settings', as: users.fitter, headers: bad, body: '{"not json' })).status).toBe(403);
+    const admin = await raw({ method: 'PUT', path: '/api/plant-settings', as: users.admin, headers: bad, body: '{"not json' });
+    expectClientError(admin, 400);
+    expect(admin.body.error.message).toBe('The request body is not valid JSON.');
+  });
+});
+
+describe('sign-in is rate limited per client address', () => {
+  const address = () => `192.0.2.${Math.floor(Math.random() * 250) + 1}`;
+
+  it('the fourth start within a minute from one address answers 429 with Retry-After; another address is not held up', async () => {
+    const app = createApp({ signInLimit: { perMinute: 3, redisUrl: config.redisUrl } });
+    expect(await app.locals.signInLimitConnected).toBe(true); // counted in Redis from the first request
+    const from = address();
+    for (let i = 0; i < 3; i++) expect((await request(app).get('/auth/login').set('X-Forwarded-For', from)).status).toBe(302);
+    const refused = await request(app).get('/auth/login').set('X-Forwarded-For', from);
+    expect(refused.status).toBe(429);
+    expect(Number(refused.headers['retry-after'])).toBeGreaterThan(0);
+    expect(refused.body.error).toMatchObject({ code: 'too_many_requests', message: expect.stringContaining('Too many sign-in attempts') });
+    expect((await request(app).get('/auth/callback?code=x&state=y').set('X-Forwarded-For', from)).status).toBe(429);
+    expect((await request(app).get('/auth/login').set('X-Forwarded-For', `${from}0`.slice(0, 15))).status).toBe(302);
+  });
+
+  it('with Redis unreachable, sign-in still starts at once and is still limited, in memory', async () => {
+    const app = createApp({ signInLimit: { perMinute: 2, redisUrl: 'redis://127.0.0.1:1' } });
+    expect(await app.locals.signInLimitConnected).toBe(false);
+    const from = address();
+    const started = Date.now();
+    expect((await request(app).get('/auth/login').set('X-Forwarded-For', from)).status).toBe(302);
+    expect(Date.now() - started).toBeLessThan(3000);
+    expect((await request(app).get('/auth/login').set('X-Forwarded-For', from)).status).toBe(302);
+    expect((await request(app).get('/auth/login').set('X-Forwarded-For', from)).status).toBe(429);
+  });
+
+  it('an unfinished sign-in keeps its session minutes, not the half day a signed-in session gets', async () => {
+    const b = new Browserless();
+    expect((await b.raw('/auth/login')).status).toBe(302);
+    const sid = decodeURIComponent(b.cookie('lw.sid')!).replace(/^s:/, '').split('.')[0];
+    const [row] = await sequelize.query<{ expire: Date }>('select expire from user_sessions where sid = $1', { bind: [sid], type: 'SELECT' as never });
+    const left = new Date(row!.expire).getTime() - Date.now();
+    expect(left).toBeGreaterThan(SIGN_IN_PENDING_MS - 60_000);
+    expect(left).toBeLessThanOrEqual(SIGN_IN_PENDING_MS + 5_000);
+  });
+});
+
+describe('answers that must not be kept', () => {
+  it('API answers, errors and the CSV export carry Cache-Control: no-store', async () => {
+    for (const p of ['/api/lines', '/api/lines/export.csv', '/api/me', '/api/lines/NO-SUCH-LINE']) {
+      expect((await raw({ method: 'GET', path: p, as: users.planner })).headers['cache-control'], p).toBe('no-store');
+    }
+    expect((await raw({ method: 'GET', path: '/api/lines' })).headers['cache-control']).toBe('no-store');
+  });
+
+  it('a missing file under /assets/ is a 404, not the app’s page', async () => {
+    if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
+    const res = await raw({ method: 'GET', path: '/assets/no-such-chunk-1234.js' });
+    expectClientError(res, 404);
+    expect((await raw({ method: 'GET', path: '/lines' })).status).toBe(200);
+  });
+});
