@@ -5,9 +5,10 @@ import * as lineSearchIndex from '@server/db/migrations/20261202000200-line-sear
 import * as plantSettings from '@server/db/migrations/20261202000300-plant-settings';
 import * as lineImportPreviewedAt from '@server/db/migrations/20261203000100-line-import-previewed-at';
 import * as dropLineSearchTrigram from '@server/db/migrations/20261203000200-drop-line-search-trigram';
+import * as plantSettingsVersion from '@server/db/migrations/20261204000100-plant-settings-version';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
-const migrations = [createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram];
+const migrations = [createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion];
 
 export function migrator() {
   return new Umzug({

@@ -1,6 +1,7 @@
 import { sequelize } from '@server/db/sequelize';
 import { PlantSetting } from '@server/db/models/plant-setting';
 import { Person } from '@server/db/models/person';
+import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
 import { DEFAULT_CURE_SCHEDULE_ID, listCureSchedules } from '@shared/trade';
 import type { PlantSettings, PlantSettingsBody } from '@shared/schemas/plant-settings';
@@ -19,6 +20,7 @@ async function toDto(row: PlantSetting | null): Promise<PlantSettings> {
   return {
     cureScheduleId,
     testCap: row?.testCap ?? 'rating',
+    version: row?.version ?? 0,
     schedule: describeSchedule(cureScheduleId),
     updatedAt: row?.updatedById ? row.updatedAt.toISOString() : null,
     updatedBy: who ? { id: who.id, name: who.name } : null,
@@ -29,12 +31,29 @@ export async function currentPlantSettings(): Promise<PlantSettings> {
   return toDto(await PlantSetting.findByPk(SETTINGS_ID));
 }
 
-/** Writes the plant's choices and the audit entry in one transaction; the body is already validated. */
+const minuteUtc = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+
+/** 409 naming who saved the settings after the form was opened, and when. */
+async function staleSave(setting: PlantSetting): Promise<AppError> {
+  const who = setting.updatedById ? await Person.findByPk(setting.updatedById) : null;
+  return new AppError(
+    409,
+    'stale_settings',
+    `${who?.name ?? 'Someone'} changed the plant settings at ${minuteUtc(setting.updatedAt)}, after you opened them. ` +
+      'Look at what they chose, then save again if your choice should stand.',
+  );
+}
+
+/**
+ * Writes the plant's choices and the audit entry in one transaction; the body is already
+ * validated. Refused (409) when the row moved past the version the form was opened at.
+ */
 export async function setPlantSettings(actor: Me, body: PlantSettingsBody): Promise<PlantSettings> {
   const row = await sequelize.transaction(async (transaction) => {
-    const [setting] = await PlantSetting.findOrCreate({ where: { id: SETTINGS_ID }, defaults: { id: SETTINGS_ID, updatedById: null }, transaction, lock: transaction.LOCK.UPDATE });
+    const [setting, created] = await PlantSetting.findOrCreate({ where: { id: SETTINGS_ID }, defaults: { id: SETTINGS_ID, updatedById: null, version: 0 }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!created && setting.version !== body.version) throw await staleSave(setting);
     const before = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap };
-    await setting.update({ cureScheduleId: body.cureScheduleId, testCap: body.testCap, updatedById: actor.id }, { transaction });
+    await setting.update({ cureScheduleId: body.cureScheduleId, testCap: body.testCap, updatedById: actor.id, version: setting.version + 1 }, { transaction });
     const after = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap };
     await recordAudit({ actorId: actor.id, action: 'plant-settings-set', entity: 'plant-settings', entityId: String(SETTINGS_ID), before, after }, transaction);
     return setting;

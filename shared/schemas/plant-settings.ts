@@ -17,6 +17,8 @@ export const plantSettingsBodySchema = z.object({
     .string()
     .refine((id) => scheduleIds().includes(id), { message: `Not a published cure schedule (choose ${scheduleIds().join(' or ')})` }),
   testCap: z.enum(TEST_CAPS),
+  /** The version the form was opened at (PlantSettings.version); a save over a newer one is refused. */
+  version: z.number().int().min(0),
 });
 export type PlantSettingsBody = z.infer<typeof plantSettingsBodySchema>;
 

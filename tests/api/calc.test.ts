@@ -97,7 +97,7 @@ describe('GET and PUT /api/plant-settings', () => {
 
   it('a planner, fitter or supervisor may not change them', async () => {
     for (const role of ['planner', 'fitter', 'supervisor']) {
-      const res = await (await signedIn(role)).put('/api/plant-settings', { cureScheduleId: 'B', testCap: 'rating' });
+      const res = await (await signedIn(role)).put('/api/plant-settings', { cureScheduleId: 'B', testCap: 'rating', version: 1 });
       expect(res.status).toBe(403);
       expect(res.body.error.message).toMatch(/^Only an administrator may do this/);
     }
@@ -107,13 +107,28 @@ describe('GET and PUT /api/plant-settings', () => {
   it('an admin changes them: written, audited, and the calculator follows', async () => {
     const admin = await signedIn('admin');
     const me = (await admin.get('/api/me')).body;
-    const res = await admin.put('/api/plant-settings', { cureScheduleId: 'B', testCap: 'one-and-a-half-rating' });
+    const { version } = (await admin.get('/api/plant-settings')).body;
+    const res = await admin.put('/api/plant-settings', { cureScheduleId: 'B', testCap: 'one-and-a-half-rating', version });
     expect(res.status).toBe(200);
+    expect(res.body.version).toBe(version + 1);
     expect(res.body).toMatchObject({ cureScheduleId: 'B', testCap: 'one-and-a-half-rating', updatedBy: { id: me.id, name: 'Kit Morrow' } });
     expect(await PlantSetting.findByPk(1)).toMatchObject({ cureScheduleId: 'B', testCap: 'one-and-a-half-rating', updatedById: me.id });
     const audit = await AuditEntry.findOne({ where: { action: 'plant-settings-set', actorId: me.id }, order: [['id', 'DESC']] });
     expect(audit).toMatchObject({ entity: 'plant-settings', before: { cureScheduleId: 'A', testCap: 'rating' }, after: { cureScheduleId: 'B', testCap: 'one-and-a-half-rating' } });
     expect((await users.fitter.post('/api/calc/joint', plain)).body.cure.schedule).toBe('B');
+  });
+
+  it('two admins save from the same version: the second is refused with who changed them and when, and the first choice stands', async () => {
+    const [first, second] = [await signedIn('admin'), await signedIn('admin')];
+    const { version } = (await first.get('/api/plant-settings')).body;
+    expect((await first.put('/api/plant-settings', { cureScheduleId: 'B', testCap: 'rating', version })).status).toBe(200);
+    const late = await second.put('/api/plant-settings', { cureScheduleId: 'A', testCap: 'one-and-a-half-rating', version });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe('stale_settings');
+    expect(late.body.error.message).toMatch(/^Kit Morrow changed the plant settings at \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC, after you opened them/);
+    expect(await PlantSetting.findByPk(1)).toMatchObject({ cureScheduleId: 'B', testCap: 'rating', version: version + 1 });
+    // Having seen the change, the second admin saves from the new version.
+    expect((await second.put('/api/plant-settings', { cureScheduleId: 'A', testCap: 'rating', version: version + 1 })).status).toBe(200);
   });
 
   it('a schedule that is not published is a 400 naming the field, and nothing changes', async () => {

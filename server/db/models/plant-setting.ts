@@ -8,6 +8,8 @@ export class PlantSetting extends Model<InferAttributes<PlantSetting>, InferCrea
   declare cureScheduleId: CreationOptional<string>;
   declare testCap: CreationOptional<TestCap>;
   declare updatedById: string | null;
+  /** Raised by every save; a save from an older version is refused (two admins at once). */
+  declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -18,6 +20,7 @@ PlantSetting.init(
     cureScheduleId: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'A' },
     testCap: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'rating' },
     updatedById: { type: DataTypes.UUID },
+    version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
