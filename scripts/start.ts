@@ -1,7 +1,8 @@
+import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { ChildProcess } from 'node:child_process';
 import { ensureDebianPackages } from './lib/debian';
-import { startPostgres } from './lib/postgres';
+import { clusterDirFor, projectClusterDir, startPostgres } from './lib/postgres';
 import { startRedis, waitForPort } from './lib/redis';
 import { ROOT, runBin, runTs, startTs } from './lib/processes';
 import { startIdentityFake } from './identity-fake';
@@ -18,8 +19,22 @@ const started: (() => unknown)[] = [];
 async function main() {
   const dev = process.argv.includes('--dev');
   ensureDebianPackages(['postgresql', 'redis-server']);
-  const pg = startPostgres({ dir: path.join(DATA, 'pg'), port: PORTS.pg, database: 'linewright' });
+  // As root, the cluster lives outside the project (the postgres user cannot enter a home folder);
+  // a cluster made earlier in data/pg stays there. Same project folder, same cluster, every time.
+  const pgDir = projectClusterDir(ROOT);
+  const inProject = pgDir.startsWith(DATA + path.sep);
+  log(`PostgreSQL data in ${pgDir}`);
+  const moveTo = path.dirname(clusterDirFor(ROOT));
+  const pg = startPostgres({
+    dir: pgDir,
+    port: PORTS.pg,
+    database: 'linewright',
+    // The one way out besides chmod, for an old cluster in data/pg: move it to where new clusters go.
+    unreachableHint: inProject && process.getuid?.() === 0 ? `move the cluster out of the project: install -d -m 755 ${path.dirname(moveTo)} ${moveTo} && mv ${pgDir} ${moveTo}/` : undefined,
+  });
   started.push(() => pg.stop());
+  // Names the project a folder under /var/lib/linewright belongs to, for whoever finds it there later.
+  if (!inProject) writeFileSync(path.join(path.dirname(pgDir), 'project'), `${ROOT}\n`);
   const redis = await startRedis({ port: PORTS.redis, dir: path.join(DATA, 'redis') });
   started.push(() => redis.stop());
   const origin = `http://127.0.0.1:${PORTS.app}`;
@@ -58,7 +73,7 @@ async function main() {
   Sign in     with a demo account below, password "${DEMO_PASSWORD}"
 ${accounts}
   Mail        captured mail is at ${mail.viewerUrl}
-  Data        ${path.relative(ROOT, DATA)}/ (kept between runs)
+  Data        PostgreSQL in ${inProject ? path.relative(ROOT, pgDir) : pgDir}, Redis in ${path.relative(ROOT, DATA)}/redis (kept between runs)
 
   Ctrl-C stops everything.
 `);
