@@ -1,6 +1,6 @@
 import { createBrowserRouter, redirect, type LoaderFunctionArgs, type ShouldRevalidateFunction } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
-import { authQueries } from '@/features/auth/api';
+import { authQueries } from '@/lib/auth';
 import { AppShell } from '@/components/layouts/app-shell';
 import { RouteError } from '@/components/layouts/route-error';
 

@@ -1,4 +1,4 @@
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContextOptions, type Page } from 'playwright-core';
 import { DEMO_PASSWORD } from '../../scripts/demo-accounts';
 
 /** Debian's Chromium, headless; the flags keep it off this machine's closed network. */
@@ -22,9 +22,9 @@ export async function signInInBrowser(page: Page, appOrigin: string, username: s
   await page.waitForURL((url) => url.origin === appOrigin && !url.pathname.startsWith('/auth'));
 }
 
-/** A fresh browser context (no cookies) at tablet width, signed in as `username` on `path`. */
-export async function signedInPage(browser: Browser, appOrigin: string, username: string, path: string) {
-  const context = await browser.newContext({ viewport: VIEWPORTS.tablet });
+/** A fresh browser context (no cookies) at tablet width, signed in as `username` on `path`; `options` add to or change the context's. */
+export async function signedInPage(browser: Browser, appOrigin: string, username: string, path: string, options: BrowserContextOptions = {}) {
+  const context = await browser.newContext({ viewport: VIEWPORTS.tablet, ...options });
   const page = await context.newPage();
   page.setDefaultTimeout(10_000);
   await signInInBrowser(page, appOrigin, username, path);

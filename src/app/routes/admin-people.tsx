@@ -1,32 +1,35 @@
 import { useQuery } from '@tanstack/react-query';
 import { Card, PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
-import { useMe } from '@/features/auth/api';
+import { authQueries, useMe } from '@/lib/auth';
 import { peopleQueries } from '@/features/people/api';
 import { PeopleTable, RoleSourceLegend } from '@/features/people/components/people-table';
-import { ApiRequestError } from '@/lib/api-client';
+import { ensureOrShowRefusal } from '@/lib/loaders';
 import { queryClient } from '@/lib/query-client';
+import { may, refusalFor, whoMay } from '@shared/permissions';
 
-/** A refusal (403) is shown on the page itself, in the shell; anything else goes to the route's error page. */
+// Someone who may not manage people is told so on the page itself, in the shell; the server has
+// the last word (a 403 is shown the same way).
 export async function loader() {
-  try {
-    await queryClient.ensureQueryData(peopleQueries.list());
-  } catch (err) {
-    if (!(err instanceof ApiRequestError && err.status === 403)) throw err;
-  }
-  return null;
+  const me = await queryClient.ensureQueryData(authQueries.me());
+  return may(me, 'people.manage') ? ensureOrShowRefusal(peopleQueries.list()) : null;
 }
 
 export default function AdminPeoplePage() {
   const me = useMe();
-  const people = useQuery(peopleQueries.list());
+  const allowed = may(me, 'people.manage');
+  const people = useQuery({ ...peopleQueries.list(), enabled: allowed });
   return (
     <>
       <PageHeader
         title="People & roles"
-        subtitle="Everyone who has signed in. Roles come from the plant directory; here an administrator grants more or withdraws some. A change takes effect on the person's next request, without signing in again."
+        subtitle={`Everyone who has signed in. Roles come from the plant directory; here ${whoMay('people.manage')} grants more or withdraws some. A change takes effect on the person's next request, without signing in again.`}
       />
-      {people.isError ? (
+      {!allowed ? (
+        <Notice tone="refusal" title="People & roles cannot be shown">
+          {refusalFor('people.manage', me.roles)}
+        </Notice>
+      ) : people.isError ? (
         <Notice tone="refusal" title="People & roles cannot be shown">
           {people.error.message}
         </Notice>

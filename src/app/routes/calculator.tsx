@@ -5,9 +5,9 @@ import { useSuspenseQuery } from '@tanstack/react-query';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { queryClient } from '@/lib/query-client';
-import { plantSettingsQueries } from '@/features/calculator/api';
+import { plantSettingsQueries, useRefetchPlantSettings } from '@/features/plant-settings/api';
 import { calculatorFormSchema, DEFAULT_VALUES, type CalculatorValues } from '@/features/calculator/form';
-import { metricPressure, psi } from '@/features/calculator/format';
+import { metricPressure, psi } from '@/lib/format';
 import { previewJoint, stableJson } from '@/features/calculator/preview';
 import { useServerCheck } from '@/features/calculator/use-server-check';
 import { CalculatorForm } from '@/features/calculator/components/calculator-form';
@@ -33,7 +33,7 @@ export default function CalculatorPage() {
   const key = stableJson(values);
   // eslint-disable-next-line react-hooks/exhaustive-deps -- keyed by the values' content, not identity
   const preview = useMemo(() => previewJoint(values, plant), [key, plant.cureScheduleId, plant.testCap]);
-  const check = useServerCheck(preview.ok ? preview.spec : null);
+  const check = useServerCheck(preview.ok ? preview.spec : null, useRefetchPlantSettings());
   const picture = check.state === 'disagrees' ? check.server : preview.ok ? preview.picture : null;
   const test = picture?.test;
   const testHint = picture && test?.ok && picture.spec.testPressurePsi === undefined

@@ -3,6 +3,8 @@ import { useQuery } from '@tanstack/react-query';
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { ROW_OUTCOMES, type ImportStatus, type RowOutcome } from '@shared/schemas/line-imports';
 import { ApiRequestError } from '@/lib/api-client';
+import { formatDateTime } from '@/lib/format';
+import { ensureOrShowRefusal } from '@/lib/loaders';
 import { queryClient } from '@/lib/query-client';
 import { lineImportQueries, useConfirmImport, type ImportRowFilters } from '@/features/line-imports/api';
 import { lineQueries } from '@/features/lines/api';
@@ -14,17 +16,10 @@ import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
 
 const PAGE_SIZE = 100;
-const TITLES: Record<ImportStatus, string> = { previewing: 'Import preview', previewed: 'Import preview', applying: 'Writing the import', applied: 'Import written', failed: 'Import not written' };
+const TITLES: Record<ImportStatus, string> = { previewing: 'Import preview', previewed: 'Import preview', applying: 'Writing the import', applied: 'Import written', failed: 'Import not written', cancelled: 'Import cancelled' };
 
-export async function loader({ params }: LoaderFunctionArgs) {
-  try {
-    await queryClient.ensureQueryData(lineImportQueries.detail(params.id!));
-  } catch (err) {
-    // Not found, not allowed, not an id: said inside the page with the server's words.
-    if (!(err instanceof ApiRequestError && err.status >= 400 && err.status < 500)) throw err;
-  }
-  return null;
-}
+// Not found, not allowed, not an id: said inside the page with the server's words.
+export const loader = ({ params }: LoaderFunctionArgs) => ensureOrShowRefusal(lineImportQueries.detail(params.id!));
 
 function rowFilters(params: URLSearchParams): ImportRowFilters {
   const outcome = params.get('outcome') as RowOutcome | null;
@@ -38,7 +33,8 @@ export default function ImportDetailPage() {
   const filters = useMemo(() => rowFilters(params), [params]);
   const { data: imp, error } = useQuery(lineImportQueries.detail(id));
   const confirm = useConfirmImport(id);
-  const rowsReady = !!imp && imp.status !== 'previewing' && imp.totalRows > 0;
+  // A cancelled import's preview rows are gone with it.
+  const rowsReady = !!imp && imp.status !== 'previewing' && imp.status !== 'cancelled' && imp.totalRows > 0;
   const rows = useQuery({ ...lineImportQueries.rows(id, filters), enabled: rowsReady });
 
   useEffect(() => {
@@ -77,7 +73,7 @@ export default function ImportDetailPage() {
         subtitle={
           <>
             <span className="font-medium text-ink">{imp.filename}</span> · {kindWord} file{imp.totalRows > 0 && ` · ${imp.totalRows} rows`} · uploaded{' '}
-            {new Date(imp.createdAt).toLocaleString('en-US', { dateStyle: 'medium', timeStyle: 'short' })}
+            {formatDateTime(imp.createdAt)}
           </>
         }
       />

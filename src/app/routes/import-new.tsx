@@ -1,6 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
-import { authQueries, hasRole } from '@/features/auth/api';
+import { authQueries } from '@/lib/auth';
+import { may, whoMay } from '@shared/permissions';
 import { useUploadImport } from '@/features/line-imports/api';
 import { CsvDropZone } from '@/features/line-imports/components/csv-drop-zone';
 import { CsvFormat } from '@/features/line-imports/components/csv-formats';
@@ -11,7 +12,7 @@ export default function ImportNewPage() {
   const navigate = useNavigate();
   const { data: me } = useQuery(authQueries.me());
   const upload = useUploadImport();
-  const mayImport = hasRole(me, 'planner', 'admin');
+  const mayImport = may(me, 'lines.import');
 
   return (
     <>
@@ -21,7 +22,7 @@ export default function ImportNewPage() {
       />
       {!mayImport ? (
         <Notice tone="refusal" title="Importing is for planners and administrators">
-          You can read the register; ask a planner to import changes to it. <Link to="/lines" className="font-medium text-tide underline">Back to the line register</Link>
+          You can read the register; ask {whoMay('lines.import')} to import changes to it. <Link to="/lines" className="font-medium text-tide underline">Back to the line register</Link>
         </Notice>
       ) : (
         <div className="grid gap-4 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">

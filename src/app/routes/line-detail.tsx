@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link, useLocation, useParams, type LoaderFunctionArgs } from 'react-router-dom';
-import { queryClient } from '@/lib/query-client';
 import { ApiRequestError } from '@/lib/api-client';
+import { ensureOrShowRefusal } from '@/lib/loaders';
 import { lineQueries } from '@/features/lines/api';
 import { LineStatusMark } from '@/features/lines/components/line-status';
 import { ChemicalServiceCaution, LineFacts } from '@/features/lines/components/line-facts';
@@ -9,15 +9,8 @@ import { IsolationPointsTable } from '@/features/lines/components/isolation-poin
 import { Card, PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 
-export async function loader({ params }: LoaderFunctionArgs) {
-  try {
-    await queryClient.ensureQueryData(lineQueries.detail(params.lineNumber!));
-  } catch (err) {
-    // A line that is not in the register is shown inside the page, not as a broken page.
-    if (!(err instanceof ApiRequestError && err.status === 404)) throw err;
-  }
-  return null;
-}
+// A line that is not in the register is shown inside the page, not as a broken page.
+export const loader = ({ params }: LoaderFunctionArgs) => ensureOrShowRefusal(lineQueries.detail(params.lineNumber!));
 
 export default function LineDetailPage() {
   const { lineNumber } = useParams() as { lineNumber: string };

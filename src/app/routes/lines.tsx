@@ -1,12 +1,14 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { Link, useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
+import { useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
-import { authQueries, hasRole } from '@/features/auth/api';
+import { authQueries } from '@/lib/auth';
+import { may } from '@shared/permissions';
 import { lineExportHref, lineQueries } from '@/features/lines/api';
 import { filtersFromSearch, filtersToSearch, hasActiveFilters, type LineFilters } from '@/features/lines/filters';
 import { LinesTable } from '@/features/lines/components/lines-table';
 import { LineFilterBar } from '@/features/lines/components/line-filters';
+import { buttonClass, ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
@@ -21,14 +23,13 @@ export const shouldRevalidate = ({ currentUrl, nextUrl, defaultShouldRevalidate 
   currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
 
 const PAGE_SIZES = [25, 50, 100];
-const linkButton = 'inline-flex min-h-11 items-center justify-center gap-2 rounded-lg px-4 py-2 text-sm font-semibold';
 
 export default function LinesPage() {
   const [params, setParams] = useSearchParams();
   const filters = useMemo(() => filtersFromSearch(params), [params]);
   const { data, error, isPlaceholderData, isFetching } = useQuery(lineQueries.list(filters));
   const { data: me } = useQuery(authQueries.me());
-  const mayImport = hasRole(me, 'planner', 'admin');
+  const mayImport = may(me, 'lines.import');
 
   /** Any change other than paging starts again at page 1. */
   const update = (patch: Partial<LineFilters>, replace = false) => {
@@ -44,13 +45,11 @@ export default function LinesPage() {
         subtitle={data ? `${data.total} ${data.total === 1 ? 'line' : 'lines'}${hasActiveFilters(filters) ? ' match' : ' in the plant'}` : 'Every process line in the plant'}
         actions={
           <>
-            <a href={lineExportHref(filters)} download className={`${linkButton} border border-ink/20 bg-paper-raised text-ink hover:bg-paper-sunk`}>
+            <a href={lineExportHref(filters)} download className={buttonClass('secondary')}>
               Export CSV
             </a>
             {mayImport && (
-              <Link to="/imports/new" className={`${linkButton} bg-tide text-white hover:bg-tide-dark`}>
-                Import lines
-              </Link>
+              <ButtonLink to="/imports/new">Import lines</ButtonLink>
             )}
           </>
         }
@@ -114,9 +113,9 @@ function EmptyRegister({ filtered, mayImport, onClear }: { filtered: boolean; ma
             {mayImport ? 'Import the plant’s line list from a CSV file to start.' : 'A planner imports the plant’s line list; ask them to load it.'}
           </p>
           {mayImport && (
-            <Link to="/imports/new" className={`${linkButton} mt-4 bg-tide text-white hover:bg-tide-dark`}>
+            <ButtonLink to="/imports/new" className="mt-4">
               Import lines
-            </Link>
+            </ButtonLink>
           )}
         </>
       )}

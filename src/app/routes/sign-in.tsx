@@ -1,4 +1,6 @@
 import { useSearchParams } from 'react-router-dom';
+import { buttonClass } from '@/components/ui/button';
+import { whoMay } from '@shared/permissions';
 
 export default function SignInPage() {
   const [params] = useSearchParams();
@@ -10,13 +12,10 @@ export default function SignInPage() {
         <p className="mt-2 text-ink-soft">
           Repairs and tie-ins on the plant's thermoplastic lines: joints, lockouts, cure holds and release to service.
         </p>
-        <a
-          href={`/auth/login?returnTo=${encodeURIComponent(returnTo)}`}
-          className="mt-8 flex min-h-12 items-center justify-center rounded-lg bg-tide text-lg font-semibold text-white hover:bg-tide-dark"
-        >
+        <a href={`/auth/login?returnTo=${encodeURIComponent(returnTo)}`} className={buttonClass('primary', { size: 'wide', className: 'mt-8' })}>
           Sign in with the plant directory
         </a>
-        <p className="mt-4 text-sm text-ink-faint">Your roles come from the plant directory; an administrator can change them here.</p>
+        <p className="mt-4 text-sm text-ink-faint">Your roles come from the plant directory; {whoMay('people.manage')} can change them here.</p>
       </div>
     </div>
   );

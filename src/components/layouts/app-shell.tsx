@@ -1,20 +1,21 @@
 import { useQuery } from '@tanstack/react-query';
 import { NavLink, Outlet } from 'react-router-dom';
-import { authQueries, hasRole, signOut } from '@/features/auth/api';
-import type { Role } from '@shared/schemas/roles';
+import { authQueries, signOut } from '@/lib/auth';
+import { may, type Action } from '@shared/permissions';
 import { ROLE_LABELS } from '@shared/schemas/roles';
 
-const NAV: { to: string; label: string; roles?: Role[] }[] = [
+/** A page with an action is offered to those the permission table lets do it; the rest to everyone signed in. */
+const NAV: { to: string; label: string; action?: Action }[] = [
   { to: '/lines', label: 'Line register' },
-  { to: '/imports/new', label: 'Import lines', roles: ['planner', 'admin'] },
+  { to: '/imports/new', label: 'Import lines', action: 'lines.import' },
   { to: '/calculator', label: 'Joint calculator' },
-  { to: '/admin/people', label: 'People & roles', roles: ['admin'] },
-  { to: '/admin/plant', label: 'Plant settings', roles: ['admin'] },
+  { to: '/admin/people', label: 'People & roles', action: 'people.manage' },
+  { to: '/admin/plant', label: 'Plant settings', action: 'plantSettings.edit' },
 ];
 
 export function AppShell() {
   const { data: me } = useQuery(authQueries.me());
-  const items = NAV.filter((n) => !n.roles || hasRole(me, ...n.roles));
+  const items = NAV.filter((n) => !n.action || may(me, n.action));
   return (
     <div className="min-h-screen">
       <header className="sticky top-0 z-20 border-b border-ink/10 bg-ink text-paper">

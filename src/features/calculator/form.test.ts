@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { calculatorFormSchema, convertUnits, DEFAULT_VALUES, formToSpec, type CalculatorValues } from './form';
-import { pressureIn, temperatureIn } from './format';
+import { pressureIn, temperatureIn } from '@/lib/format';
 
 const form = (over: Partial<CalculatorValues>): CalculatorValues => ({ ...DEFAULT_VALUES, ...over });
 const spec = (over: Partial<CalculatorValues>) => {

@@ -4,13 +4,10 @@
 
 import { z } from 'zod';
 import { jointSpecSchema, NOMINAL_SIZES, parsePressure, parseTemperature, type JointSpecInput } from '@shared/trade';
+import { PRESSURE_UNITS, TEMPERATURE_UNITS, type PressureUnit, type TemperatureUnit } from '@/lib/format';
 
-export const PRESSURE_UNITS = ['psi', 'bar', 'kPa'] as const;
-export const TEMPERATURE_UNITS = ['F', 'C'] as const;
 export const TEST_MEDIA = ['water', 'air', 'nitrogen'] as const;
 export const CEMENT_STANDARDS = ['ASTM D2564', 'ASTM F493', 'ASTM D2235', 'ASTM D3138'] as const;
-export type PressureUnit = (typeof PRESSURE_UNITS)[number];
-export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];
 
 const shape = jointSpecSchema.shape;
 const yesNo = z.enum(['yes', 'no']);

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { authQueries } from '@/features/auth/api';
+import { authQueries } from '@/lib/auth';
 import type { Person, Role } from '@shared/schemas/roles';
 
 export const peopleQueries = {

@@ -2,8 +2,8 @@ import { cloneElement, useId, type ReactElement, type ReactNode } from 'react';
 import { Controller, type UseFormReturn } from 'react-hook-form';
 import { Select } from '@/components/ui/field';
 import { CEMENT_FOR_MATERIAL, NOMINAL_SIZES } from '@shared/trade';
-import { CEMENT_STANDARDS, convertUnits, type CalculatorField, type CalculatorValues, type PressureUnit, type TemperatureUnit } from '../form';
-import { PRESSURE_UNIT_LABEL, pressureIn, TEMPERATURE_UNIT_LABEL, temperatureIn } from '../format';
+import { CEMENT_STANDARDS, convertUnits, type CalculatorField, type CalculatorValues } from '../form';
+import { PRESSURE_UNIT_LABEL, pressureIn, TEMPERATURE_UNIT_LABEL, temperatureIn, type PressureUnit, type TemperatureUnit } from '@/lib/format';
 import { Segmented } from './segmented';
 import { UnitInput } from './unit-input';
 
@@ -71,7 +71,9 @@ export function CalculatorForm({ form, testHint }: { form: Form; testHint: strin
   );
 
   return (
-    <form className="space-y-4" onSubmit={(e) => e.preventDefault()} noValidate aria-label="Joint specification">
+    <form className="space-y-4" onSubmit={(e) => e.preventDefault()} noValidate aria-labelledby="joint-spec">
+      {/* The groups' headings sit under this one, as the results' sections sit beside it; seen, the form needs no title. */}
+      <h2 id="joint-spec" className="sr-only">Joint specification</h2>
       <div className="grid grid-cols-2 gap-3">
         <Segmented legend="Pressure in" name="pressureUnit" value={watch('pressureUnit')} onChange={(u) => switchUnits({ pressureUnit: u })}
           options={[{ value: 'psi', label: 'psi' }, { value: 'bar', label: 'bar' }, { value: 'kPa', label: 'kPa' }]} />

@@ -1,6 +1,5 @@
 import type { JointPicture } from '@shared/trade';
-import type { PressureUnit } from '../form';
-import { degC, degF, duration, metricPressure, psi } from '../format';
+import { degC, degF, duration, metricPressure, psi, type PressureUnit } from '@/lib/format';
 import { Fact, Facts, Refused, Section, Source } from './facts';
 
 export function CureSection({ picture: p, unit }: { picture: JointPicture; unit: PressureUnit }) {

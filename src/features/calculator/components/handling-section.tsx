@@ -1,5 +1,5 @@
 import type { JointPicture } from '@shared/trade';
-import { inches, mm } from '../format';
+import { inches, mm } from '@/lib/format';
 import { Fact, Facts, Section, Source } from './facts';
 
 const KIND = { dauber: 'Dauber', swab: 'Swab', 'swab-or-roller': 'Swab or roller' } as const;

@@ -1,5 +1,5 @@
 import type { JointPicture } from '@shared/trade';
-import { containers, volume } from '../format';
+import { containers, volume } from '@/lib/format';
 import { Fact, Facts, Refused, Section, Source } from './facts';
 
 const BODY_LABEL = { regular: 'Regular body', medium: 'Medium body', heavy: 'Heavy body' } as const;

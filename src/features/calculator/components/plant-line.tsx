@@ -1,4 +1,4 @@
-import { Link } from 'react-router-dom';
+import { ButtonLink } from '@/components/ui/button';
 import type { PlantSettings } from '@shared/schemas/plant-settings';
 import { TEST_CAP_LABELS } from '@shared/schemas/plant-settings';
 
@@ -13,9 +13,9 @@ export function PlantLine({ plant }: { plant: PlantSettings }) {
         <span className="font-semibold">Test cap:</span> <span className="text-ink-soft">{TEST_CAP_LABELS[plant.testCap].toLowerCase()}</span>
         {' — change in plant settings'}
       </p>
-      <Link to="/admin/plant" className="inline-flex min-h-11 items-center rounded-lg border border-ink/20 bg-paper-raised px-3 font-semibold text-tide hover:bg-paper">
+      <ButtonLink to="/admin/plant" variant="secondary">
         Plant settings
-      </Link>
+      </ButtonLink>
     </div>
   );
 }

@@ -1,7 +1,6 @@
 import type { JointPicture } from '@shared/trade';
 import { TEST_CAP_LABELS } from '@shared/schemas/plant-settings';
-import type { PressureUnit } from '../form';
-import { degC, degF, duration, metricPressure, psi } from '../format';
+import { degC, degF, duration, metricPressure, psi, type PressureUnit } from '@/lib/format';
 import { Fact, Facts, Refused, Section, Source } from './facts';
 
 export function PressureSection({ picture: p, unit }: { picture: JointPicture; unit: PressureUnit }) {

@@ -1,6 +1,6 @@
 import { CHECK_MARK_OFFSET_IN, type JointPicture } from '@shared/trade';
 import type { DryFitWindow } from '../preview';
-import { inches, mm } from '../format';
+import { inches, mm } from '@/lib/format';
 import { Fact, Facts, Section, Source } from './facts';
 
 export function SocketSection({ picture: p, dryFit }: { picture: JointPicture; dryFit: DryFitWindow | null }) {

@@ -1,7 +1,6 @@
 import type { ReactNode } from 'react';
 import type { JointPicture } from '@shared/trade';
-import type { PressureUnit } from '../form';
-import { duration, inches, metricPressure, mm, psi } from '../format';
+import { duration, inches, metricPressure, mm, psi, type PressureUnit } from '@/lib/format';
 import { plainReason, refusalTitle, whoDecides } from './facts';
 
 function Figure({ label, value, sub }: { label: string; value: ReactNode; sub?: ReactNode }) {

@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { LineImportDto } from '@shared/schemas/line-imports';
-import { Button } from '@/components/ui/button';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { Card } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { ProgressBar } from '@/components/ui/progress-bar';
@@ -29,6 +29,15 @@ export function ImportStatusPanel(props: { imp: LineImportDto; onConfirm: () => 
     return (
       <Notice tone="refusal" title="The import failed. Nothing was written to the register.">
         {imp.error ?? 'The server gave no reason.'}{' '}
+        <Link to="/imports/new" className="font-medium text-tide underline">
+          Upload a file again
+        </Link>
+      </Notice>
+    );
+  }
+  if (imp.status === 'cancelled') {
+    return (
+      <Notice title="This import was cancelled. Nothing was written to the register.">
         <Link to="/imports/new" className="font-medium text-tide underline">
           Upload a file again
         </Link>
@@ -75,9 +84,9 @@ export function ImportStatusPanel(props: { imp: LineImportDto; onConfirm: () => 
         <Button onClick={onConfirm} disabled={confirming || writes === 0 || confirmRefused}>
           {confirming ? 'Writing…' : writes === 0 ? 'Nothing to write' : `Write ${counts.new} new and ${counts.changed} changed ${noun(imp, writes)} to the register`}
         </Button>
-        <Link to="/imports/new" className="inline-flex min-h-11 items-center rounded-lg px-3 text-sm font-medium text-tide hover:bg-tide-light/50">
+        <ButtonLink to="/imports/new" variant="ghost">
           {confirmRefused ? 'Upload the file again' : 'Cancel and choose another file'}
-        </Link>
+        </ButtonLink>
       </div>
     </Card>
   );

@@ -1,7 +1,7 @@
 import type { LineDetailDto } from '@shared/schemas/lines';
-import { cautionsFor, DEFERENCE } from '@shared/trade/index';
+import { cautionsFor, DEFERENCE, needsChemicalCaution } from '@shared/trade';
 import { Notice } from '@/components/ui/notice';
-import { formatDate, formatPressure, formatPressureBar, formatSize, formatTemperature, formatTemperatureC, formatWall, looksChemical } from '@/features/lines/format';
+import { formatDate, formatPressure, formatPressureBar, formatSize, formatTemperature, formatTemperatureC, formatWall } from '@/lib/format';
 
 function Fact({ label, value, sub }: { label: string; value: React.ReactNode; sub?: string }) {
   return (
@@ -34,7 +34,7 @@ export function LineFacts({ line }: { line: LineDetailDto }) {
 
 /** The chemical-service caution, shown when the line's service does not read as plain water or air. */
 export function ChemicalServiceCaution({ service }: { service: string }) {
-  if (!looksChemical(service)) return null;
+  if (!needsChemicalCaution(service)) return null;
   const cautions = cautionsFor('chemical-service');
   return (
     <Notice tone="caution" title={`Before opening this line (${service})`}>

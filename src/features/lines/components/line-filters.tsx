@@ -1,8 +1,9 @@
 import { useEffect, useRef, useState } from 'react';
+import { useDebouncedValue } from '@/lib/use-debounced-value';
 import { CheckMenu, type CheckOption } from '@/components/ui/check-menu';
 import { LINE_STATUSES, LINE_STATUS_LABELS, PIPE_MATERIALS, type LineListResponse } from '@shared/schemas/lines';
 import { FILTER_KEYS, hasActiveFilters, type LineFilterKey, type LineFilters } from '@/features/lines/filters';
-import { formatSize } from '@/features/lines/format';
+import { formatSize } from '@/lib/format';
 
 const LABELS: Record<LineFilterKey, string> = { area: 'Area', material: 'Material', size: 'Size', status: 'Status' };
 
@@ -13,19 +14,10 @@ function optionsFor(key: LineFilterKey, facets: LineListResponse['facets'] | und
   return (facets?.sizes ?? []).map((s) => ({ value: s, label: formatSize(s) }));
 }
 
-/** Waits until typing pauses before the search reaches the address bar (and the server). */
-function useDebounced<T>(value: T, ms: number): T {
-  const [settled, setSettled] = useState(value);
-  useEffect(() => {
-    const t = setTimeout(() => setSettled(value), ms);
-    return () => clearTimeout(t);
-  }, [value, ms]);
-  return settled;
-}
-
 export function LineFilterBar({ filters, facets, onChange }: { filters: LineFilters; facets?: LineListResponse['facets']; onChange: (patch: Partial<LineFilters>, replace?: boolean) => void }) {
   const [search, setSearch] = useState(filters.search ?? '');
-  const settled = useDebounced(search.trim(), 300);
+  // Waits until typing pauses before the search reaches the address bar (and the server).
+  const settled = useDebouncedValue(search.trim(), 300);
   // The last search this box and the address bar agreed on; keeps the two from echoing each other.
   const agreed = useRef(filters.search ?? '');
   useEffect(() => {

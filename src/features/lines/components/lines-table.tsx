@@ -2,7 +2,7 @@ import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from '@tan
 import { Link, useLocation, useNavigate } from 'react-router-dom';
 import type { LineDto } from '@shared/schemas/lines';
 import type { LineFilters } from '@/features/lines/filters';
-import { formatDate, formatPressure, formatSize, formatTemperature, formatWall } from '@/features/lines/format';
+import { formatDate, formatPressure, formatSize, formatTemperature, formatWall } from '@/lib/format';
 import { LineStatusMark } from '@/features/lines/components/line-status';
 
 type Sort = LineFilters['sort'];

@@ -2,10 +2,10 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useSetRoles } from '@/features/people/api';
+import { formatDateTime } from '@/lib/format';
 import { ROLES, type Person, type Role } from '@shared/schemas/roles';
 import { RoleCell } from './role-cell';
 
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 // A long address breaks before the @ rather than inside a word.
 const Email = ({ address }: { address: string }) => {
   const at = address.indexOf('@');
@@ -57,7 +57,7 @@ export function PersonRow({ person, isMe }: { person: Person; isMe: boolean }) {
           </span>
           <span className="block text-sm break-words text-ink-soft">{person.email ? <Email address={person.email} /> : 'no e-mail from the directory'}</span>
         </th>
-        <td className="px-3 py-2 text-sm text-ink-soft">{person.lastSignInAt ? when.format(new Date(person.lastSignInAt)) : 'never'}</td>
+        <td className="px-3 py-2 text-sm text-ink-soft">{person.lastSignInAt ? formatDateTime(person.lastSignInAt) : 'never'}</td>
         {ROLES.map((role) => (
           <RoleCell key={role} person={person} role={role} on={held.includes(role)} disabled={setRoles.isPending} onChange={(on) => toggle(role, on)} />
         ))}

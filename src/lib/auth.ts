@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiRequestError } from '@/lib/api-client';
-import type { Me, Role } from '@shared/schemas/roles';
+import type { Me } from '@shared/schemas/roles';
 
 export const authQueries = {
   all: () => ['auth'] as const,
@@ -24,9 +24,6 @@ export function useMe(): Me {
   if (!data) throw new Error('useMe outside a signed-in route');
   return data;
 }
-
-/** Mirrors the server's role checks so the page hides what a role may not do. */
-export const hasRole = (me: Me | null | undefined, ...roles: Role[]) => !!me && me.roles.some((r) => roles.includes(r));
 
 export async function signOut(): Promise<void> {
   const { redirectTo } = await api.post<{ redirectTo: string }>('/auth/logout');

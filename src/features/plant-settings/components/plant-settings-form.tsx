@@ -21,7 +21,8 @@ export function PlantSettingsForm({ settings, canChange }: { settings: PlantSett
   const save = useSetPlantSettings();
   const form = useForm<PlantSettingsBody>({
     resolver: zodResolver(plantSettingsBodySchema),
-    values: { cureScheduleId: settings.cureScheduleId, testCap: settings.testCap },
+    // The version the form was opened at: a save over someone else's newer one is refused (409).
+    values: { cureScheduleId: settings.cureScheduleId, testCap: settings.testCap, version: settings.version },
   });
   const chosen = form.watch();
   const onSubmit = form.handleSubmit((body) => save.mutate(body, {

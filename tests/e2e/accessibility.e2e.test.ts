@@ -1,0 +1,130 @@
+import { existsSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import path from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { Op } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { config } from '@server/config';
+import { Line } from '@server/db/models/line';
+import { LineImport } from '@server/db/models/line-import';
+import { useTestApp } from '../helpers/app';
+import { APP } from '../helpers/browserless';
+import { launchChromium, signedInPage, VIEWPORTS } from '../helpers/chromium';
+import { lineRow, testPrefix, toCsv } from '../helpers/import-csv';
+import { makeIsolationPoint, makeLines } from '../helpers/line-rows';
+
+type Username = 'planner' | 'admin';
+/** What a page needs that the test makes first. */
+interface Made {
+  lineNumber: string;
+  importId: string;
+}
+interface PageCase {
+  name: string;
+  /** The role that uses the page; null: signed out. */
+  as: Username | null;
+  path: (made: Made) => string;
+  /** Text on the page once it has loaded what it shows. */
+  shows: string;
+}
+
+/**
+ * Every page of the app, as the role that uses it sees it. A new page joins this list as a new
+ * route joins the role table.
+ */
+const PAGES: PageCase[] = [
+  { name: 'the line register', as: 'planner', path: () => '/lines', shows: 'Rows per page' },
+  { name: 'a line', as: 'planner', path: (m) => `/lines/${encodeURIComponent(m.lineNumber)}`, shows: 'Isolation points (1)' },
+  { name: 'a new import', as: 'planner', path: () => '/imports/new', shows: 'How an import works' },
+  { name: 'an import preview with a rejected row', as: 'planner', path: (m) => `/imports/${m.importId}`, shows: 'is not a material' },
+  { name: 'the joint calculator', as: 'planner', path: () => '/calculator', shows: '✓ Checked by the server' },
+  { name: 'People & roles', as: 'admin', path: () => '/admin/people', shows: 'Kit Morrow' },
+  { name: 'plant settings', as: 'admin', path: () => '/admin/plant', shows: 'Save plant settings' },
+  { name: 'sign-in', as: null, path: () => '/sign-in', shows: 'Sign in with the plant directory' },
+  { name: 'a page that does not exist', as: 'planner', path: () => '/no-such-page', shows: 'There is no page here' },
+];
+
+/** WCAG 2.0, 2.1 and 2.2, levels A and AA: what axe checks. */
+const WCAG_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'];
+const AXE_SCRIPT = createRequire(import.meta.url).resolve('axe-core/axe.min.js');
+
+interface Violation {
+  id: string;
+  impact: string | null;
+  help: string;
+  targets: string[];
+}
+
+const users = useTestApp({ signIn: ['planner'] });
+const prefix = testPrefix('A11Y');
+let browser: Browser;
+let made: Made;
+const contexts = new Map<Username | null, BrowserContext>();
+
+beforeAll(async () => {
+  if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
+  browser = await launchChromium();
+  const [line] = await makeLines(prefix, [{ drawingRef: 'P&ID-310', notes: 'Feed to the neutralisation pit.' }]);
+  await makeIsolationPoint(line, `${prefix}-V1`);
+  // One changed, one new and one rejected row, so the preview shows each kind.
+  const upload = await users.planner.upload('/api/line-imports', `${prefix}.csv`, toCsv([
+    lineRow(line.lineNumber, { area: line.area, service: line.service }),
+    lineRow(`${prefix}-900`),
+    lineRow(`${prefix}-901`, { material: 'HDPE' }),
+  ]));
+  expect(upload.status).toBe(201);
+  made = { lineNumber: line.lineNumber, importId: upload.body.id };
+});
+afterAll(async () => {
+  if (made) await LineImport.destroy({ where: { id: made.importId } });
+  await Line.destroy({ where: { lineNumber: { [Op.like]: `${prefix}-%` } } });
+  for (const context of contexts.values()) await context.close();
+  await browser?.close();
+});
+
+/** A tab of the role's browser (signed in once per role), at tablet size; axe's script is injected, so the page's CSP is bypassed. */
+async function open(as: Username | null, pagePath: string): Promise<Page> {
+  const known = contexts.get(as);
+  if (known) {
+    const page = await known.newPage();
+    page.setDefaultTimeout(10_000);
+    await page.goto(`${APP}${pagePath}`);
+    return page;
+  }
+  if (as === null) {
+    const context = await browser.newContext({ viewport: VIEWPORTS.tablet, bypassCSP: true });
+    contexts.set(as, context);
+    return open(as, pagePath);
+  }
+  const { context, page } = await signedInPage(browser, APP, as, pagePath, { bypassCSP: true });
+  contexts.set(as, context);
+  if (new URL(page.url()).pathname !== pagePath) await page.goto(`${APP}${pagePath}`);
+  return page;
+}
+
+async function axeViolations(page: Page): Promise<Violation[]> {
+  await page.addScriptTag({ path: AXE_SCRIPT });
+  return page.evaluate(async (tags) => {
+    type AxeResult = { violations: { id: string; impact: string | null; help: string; nodes: { target: unknown[] }[] }[] };
+    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<AxeResult> } }).axe;
+    const result = await axe.run(document, { runOnly: { type: 'tag', values: tags } });
+    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, targets: v.nodes.map((n) => n.target.map(String).join(' ')) }));
+  }, WCAG_TAGS);
+}
+
+const described = (violations: Violation[]) =>
+  violations.map((v) => `${v.id} (${v.impact}): ${v.help}\n    ${v.targets.join('\n    ')}`).join('\n');
+
+describe('every page passes an automatic WCAG 2.2 AA check at tablet size', () => {
+  it.each(PAGES)('$name has no serious or critical axe finding', async ({ as, path: pathOf, shows }) => {
+    const page = await open(as, pathOf(made));
+    try {
+      await page.getByText(shows).first().waitFor();
+      await page.waitForLoadState('networkidle');
+      const serious = (await axeViolations(page)).filter((v) => v.impact === 'serious' || v.impact === 'critical');
+      expect(serious, `axe found on ${pathOf(made)}:\n${described(serious)}`).toEqual([]);
+    } finally {
+      await page.close();
+    }
+  });
+});
