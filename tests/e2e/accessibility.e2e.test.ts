@@ -1,15 +1,11 @@
-import { existsSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
 import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { config } from '@server/config';
 import { Line } from '@server/db/models/line';
 import { LineImport } from '@server/db/models/line-import';
-import { useTestApp } from '../helpers/app';
 import { APP } from '../helpers/browserless';
-import { launchChromium, signedInPage, VIEWPORTS } from '../helpers/chromium';
+import { signedInPage, useBrowserApp, VIEWPORTS } from '../helpers/chromium';
 import { lineRow, testPrefix, toCsv } from '../helpers/import-csv';
 import { makeIsolationPoint, makeLines } from '../helpers/line-rows';
 
@@ -55,15 +51,12 @@ interface Violation {
   targets: string[];
 }
 
-const users = useTestApp({ signIn: ['planner'] });
+const { users, browser } = useBrowserApp({ signIn: ['planner'] });
 const prefix = testPrefix('A11Y');
-let browser: Browser;
 let made: Made;
 const contexts = new Map<Username | null, BrowserContext>();
 
 beforeAll(async () => {
-  if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
-  browser = await launchChromium();
   const [line] = await makeLines(prefix, [{ drawingRef: 'P&ID-310', notes: 'Feed to the neutralisation pit.' }]);
   await makeIsolationPoint(line, `${prefix}-V1`);
   // One changed, one new and one rejected row, so the preview shows each kind.
@@ -79,7 +72,6 @@ afterAll(async () => {
   if (made) await LineImport.destroy({ where: { id: made.importId } });
   await Line.destroy({ where: { lineNumber: { [Op.like]: `${prefix}-%` } } });
   for (const context of contexts.values()) await context.close();
-  await browser?.close();
 });
 
 /** A tab of the role's browser (signed in once per role), at tablet size; axe's script is injected, so the page's CSP is bypassed. */
@@ -92,11 +84,11 @@ async function open(as: Username | null, pagePath: string): Promise<Page> {
     return page;
   }
   if (as === null) {
-    const context = await browser.newContext({ viewport: VIEWPORTS.tablet, bypassCSP: true });
+    const context = await browser().newContext({ viewport: VIEWPORTS.tablet, bypassCSP: true });
     contexts.set(as, context);
     return open(as, pagePath);
   }
-  const { context, page } = await signedInPage(browser, APP, as, pagePath, { bypassCSP: true });
+  const { context, page } = await signedInPage(browser(), APP, as, pagePath, { bypassCSP: true });
   contexts.set(as, context);
   if (new URL(page.url()).pathname !== pagePath) await page.goto(`${APP}${pagePath}`);
   return page;

@@ -1,46 +1,22 @@
-import { existsSync } from 'node:fs';
-import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { config } from '@server/config';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Person } from '@server/db/models/person';
-import { startTestApp } from '../helpers/app';
 import { APP, signedIn } from '../helpers/browserless';
 import { DEMO_ACCOUNTS } from '../../scripts/demo-accounts';
-import { launchChromium, signedInPage } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/chromium';
 
-let stop: () => Promise<void>;
-let browser: Browser;
-let context: BrowserContext | undefined;
 let supervisorId: string;
 
 // The demo accounts are shared with other test files: start and end with their directory roles only.
 const SHOWN = DEMO_ACCOUNTS.filter((a) => ['admin', 'planner', 'supervisor'].includes(a.username)).map((a) => a.email);
 const directoryRolesOnly = () => Person.update({ rolesGranted: [], rolesWithdrawn: [] }, { where: { email: SHOWN } });
 
+const { pageAs } = useBrowserApp();
 beforeAll(async () => {
-  if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
-  stop = await startTestApp();
-  browser = await launchChromium();
   // The person the admin will grant a role to must have signed in once to be listed.
   supervisorId = (await (await signedIn('supervisor')).get('/api/me')).body.id;
   await directoryRolesOnly();
 });
-afterEach(async () => {
-  await context?.close();
-  context = undefined;
-});
-afterAll(async () => {
-  await directoryRolesOnly();
-  await browser?.close();
-  await stop?.();
-});
-
-async function pageAs(username: string, pagePath: string): Promise<Page> {
-  const opened = await signedInPage(browser, APP, username, pagePath);
-  context = opened.context;
-  return opened.page;
-}
+afterAll(directoryRolesOnly);
 
 describe('People & roles in the browser', () => {
   it('an admin grants the pipefitter role to the supervisor and sees it saved', async () => {

@@ -1,34 +1,20 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { afterEach, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { PlantSetting } from '@server/db/models/plant-setting';
-import { startTestApp } from '../helpers/app';
 import { APP } from '../helpers/browserless';
-import { launchChromium, signInInBrowser, VIEWPORTS } from '../helpers/chromium';
+import { signInInBrowser, useBrowserApp, VIEWPORTS } from '../helpers/chromium';
 
-let stop: () => Promise<void>;
-let browser: Browser;
 let page: Page;
 const plantDefaults = () => PlantSetting.update({ cureScheduleId: 'A', testCap: 'rating', updatedById: null }, { where: { id: 1 } });
 
-beforeAll(async () => {
-  await plantDefaults();
-  stop = await startTestApp();
-  browser = await launchChromium();
-});
-afterAll(async () => {
-  await browser?.close();
-  await stop();
-});
-afterEach(async () => {
-  await page?.close();
-  await plantDefaults();
-});
+const { newPage } = useBrowserApp({ before: plantDefaults });
+afterEach(plantDefaults);
 
 const verdict = () => page.getByRole('region', { name: /published tables|not allowed/i });
 
 describe('a fitter on a tablet works out one joint', () => {
   it('types a 6" joint for a cool night, sees its cure time checked by the server, then sees an air test refused', async () => {
-    page = await browser.newPage({ viewport: VIEWPORTS.tablet });
+    page = await newPage();
     await signInInBrowser(page, APP, 'fitter', '/calculator');
     await page.goto(`${APP}/calculator`);
     await page.getByLabel('Nominal size').selectOption('6');
@@ -45,7 +31,7 @@ describe('a fitter on a tablet works out one joint', () => {
   });
 
   it('switching to metric keeps the same joint: the values are converted, not re-read', async () => {
-    page = await browser.newPage({ viewport: VIEWPORTS.tablet });
+    page = await newPage();
     await signInInBrowser(page, APP, 'fitter', '/calculator');
     await page.goto(`${APP}/calculator`);
     await page.getByLabel('bar', { exact: true }).check();
@@ -56,7 +42,7 @@ describe('a fitter on a tablet works out one joint', () => {
   });
 
   it('when the plant changes its schedule while the page is open, the page follows the server', async () => {
-    page = await browser.newPage({ viewport: VIEWPORTS.desktop });
+    page = await newPage({ viewport: VIEWPORTS.desktop });
     await signInInBrowser(page, APP, 'planner', '/calculator');
     await page.goto(`${APP}/calculator`);
     await expect.poll(() => page.getByText('Plant cure schedule: A').isVisible()).toBe(true);

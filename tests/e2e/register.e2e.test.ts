@@ -1,44 +1,22 @@
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { Op } from 'sequelize';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import { config } from '@server/config';
+import { afterAll, describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
-import { startTestApp } from '../helpers/app';
 import { APP } from '../helpers/browserless';
-import { launchChromium, signedInPage } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/chromium';
 
-let stop: () => Promise<void>;
-let browser: Browser;
-let context: BrowserContext | undefined;
 const tmp = mkdtempSync(path.join(os.tmpdir(), 'linewright-register-e2e-'));
 // Line numbers of this run only, so the test neither meets nor leaves rows of another.
 const prefix = `E2E${Date.now().toString(36).toUpperCase()}`;
 const ours = { lineNumber: { [Op.like]: `${prefix}-%` } };
 
-beforeAll(async () => {
-  if (!existsSync(path.join(config.clientDist, 'index.html'))) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
-  stop = await startTestApp();
-  browser = await launchChromium();
-});
-afterEach(async () => {
-  await context?.close();
-  context = undefined;
-});
+const { pageAs } = useBrowserApp();
 afterAll(async () => {
   await Line.destroy({ where: ours });
   rmSync(tmp, { recursive: true, force: true });
-  await browser?.close();
-  await stop?.();
 });
-
-async function pageAs(username: string, pagePath: string): Promise<Page> {
-  const opened = await signedInPage(browser, APP, username, pagePath);
-  context = opened.context;
-  return opened.page;
-}
 
 function writeCsv(): string {
   const file = path.join(tmp, 'new-lines.csv');
