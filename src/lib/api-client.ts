@@ -12,11 +12,10 @@ export class ApiRequestError extends Error {
   }
 }
 
-async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
+async function send(method: string, path: string, body?: unknown): Promise<Response> {
   const isForm = body instanceof FormData;
-  let res: Response;
   try {
-    res = await fetch(path, {
+    return await fetch(path, {
       method,
       credentials: 'same-origin',
       headers: body === undefined || isForm ? {} : { 'content-type': 'application/json' },
@@ -25,13 +24,30 @@ async function request<T>(method: string, path: string, body?: unknown): Promise
   } catch {
     throw new ApiRequestError(0, 'network', 'The server cannot be reached. Check the network and try again.');
   }
+}
+
+/** Any answer that is not 2xx becomes the one error, with the server's words when it sent them. */
+async function refusal(res: Response): Promise<ApiRequestError> {
+  const text = await res.text().catch(() => '');
+  const data = text && res.headers.get('content-type')?.includes('json') ? (JSON.parse(text) as ApiError) : null;
+  const err = data?.error;
+  return new ApiRequestError(res.status, err?.code ?? 'http_' + res.status, err?.message ?? `The server answered ${res.status}.`, err?.details);
+}
+
+async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
+  const res = await send(method, path, body);
+  if (!res.ok) throw await refusal(res);
   const text = await res.text();
-  const data = text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : null;
-  if (!res.ok) {
-    const err = (data as ApiError | null)?.error;
-    throw new ApiRequestError(res.status, err?.code ?? 'http_' + res.status, err?.message ?? `The server answered ${res.status}.`, err?.details);
-  }
-  return data as T;
+  return (text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : null) as T;
+}
+
+/** A file the server sends (an export): its bytes and the name the server gave it. */
+async function download(path: string): Promise<{ blob: Blob; filename: string | null }> {
+  const res = await send('GET', path);
+  if (!res.ok) throw await refusal(res);
+  const disposition = res.headers.get('content-disposition') ?? '';
+  const filename = /filename="?([^";]+)"?/.exec(disposition)?.[1] ?? null;
+  return { blob: await res.blob(), filename };
 }
 
 export const api = {
@@ -40,7 +56,20 @@ export const api = {
   put: <T>(path: string, body?: unknown) => request<T>('PUT', path, body ?? {}),
   delete: <T>(path: string) => request<T>('DELETE', path),
   upload: <T>(path: string, form: FormData) => request<T>('POST', path, form),
+  download,
 };
+
+/** Hands a fetched file to the browser as a download. */
+export function saveFile(blob: Blob, filename: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = filename;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
 
 /** Builds a query string from defined values; an array's values become one repeated parameter each (`?a=1&a=2`). */
 export function toSearch(params: Record<string, unknown>): string {

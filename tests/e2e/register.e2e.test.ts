@@ -1,4 +1,4 @@
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { Op } from 'sequelize';
@@ -6,6 +6,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
 import { APP } from '../helpers/browserless';
 import { useBrowserApp } from '../helpers/chromium';
+import { LINE_HEADER } from '../helpers/import-csv';
+import { makeLines } from '../helpers/line-rows';
 
 const tmp = mkdtempSync(path.join(os.tmpdir(), 'linewright-register-e2e-'));
 // Line numbers of this run only, so the test neither meets nor leaves rows of another.
@@ -75,5 +77,30 @@ describe('importing lines in the browser', () => {
     await page.goto(`${APP}/imports/new`);
     await page.getByRole('alert').filter({ hasText: 'Importing is for planners and administrators' }).waitFor();
     expect(await page.locator('input[type=file]').count()).toBe(0);
+  });
+});
+
+describe('exporting the register in the browser', () => {
+  it('Export CSV downloads the filtered register as a file named for the day', async () => {
+    await makeLines(`${prefix}-X`, [{}, {}]);
+    const page = await pageAs('fitter', `/lines?search=${prefix}-X`);
+    await page.getByText('2 lines match', { exact: true }).waitFor();
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export CSV' }).click()]);
+    expect(download.suggestedFilename()).toMatch(/^line-register-\d{4}-\d{2}-\d{2}\.csv$/);
+    const text = readFileSync((await download.path())!, 'utf8');
+    expect(text.split('\r\n')[0]).toBe(LINE_HEADER.join(','));
+    expect(text.match(new RegExp(`^${prefix}-X-`, 'gm'))).toHaveLength(2);
+  });
+
+  it('when the export fails, the page says why and no file arrives', async () => {
+    const page = await pageAs('fitter', '/lines');
+    await page.route('**/api/lines/export.csv*', (route) =>
+      route.fulfill({ status: 503, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unavailable', message: 'The register is being rebuilt.' } }) }),
+    );
+    let downloads = 0;
+    page.on('download', () => downloads++);
+    await page.getByRole('button', { name: 'Export CSV' }).click();
+    await page.getByRole('alert').filter({ hasText: 'The export could not be made' }).filter({ hasText: 'The register is being rebuilt.' }).waitFor();
+    expect(downloads).toBe(0);
   });
 });

@@ -4,11 +4,11 @@ import { useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunction
 import { queryClient } from '@/lib/query-client';
 import { authQueries } from '@/lib/auth';
 import { may } from '@shared/permissions';
-import { lineExportHref, lineQueries } from '@/features/lines/api';
+import { lineQueries, useExportLines } from '@/features/lines/api';
 import { filtersFromSearch, filtersToSearch, hasActiveFilters, type LineFilters } from '@/features/lines/filters';
 import { LinesTable } from '@/features/lines/components/lines-table';
 import { LineFilterBar } from '@/features/lines/components/line-filters';
-import { buttonClass, ButtonLink } from '@/components/ui/button';
+import { Button, ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
@@ -30,6 +30,7 @@ export default function LinesPage() {
   const { data, error, isPlaceholderData, isFetching } = useQuery(lineQueries.list(filters));
   const { data: me } = useQuery(authQueries.me());
   const mayImport = may(me, 'lines.import');
+  const exportLines = useExportLines();
 
   /** Any change other than paging starts again at page 1. */
   const update = (patch: Partial<LineFilters>, replace = false) => {
@@ -45,15 +46,22 @@ export default function LinesPage() {
         subtitle={data ? `${data.total} ${data.total === 1 ? 'line' : 'lines'}${hasActiveFilters(filters) ? ' match' : ' in the plant'}` : 'Every process line in the plant'}
         actions={
           <>
-            <a href={lineExportHref(filters)} download className={buttonClass('secondary')}>
-              Export CSV
-            </a>
+            <Button variant="secondary" onClick={() => exportLines.mutate(filters)} disabled={exportLines.isPending}>
+              {exportLines.isPending ? 'Exporting…' : 'Export CSV'}
+            </Button>
             {mayImport && (
               <ButtonLink to="/imports/new">Import lines</ButtonLink>
             )}
           </>
         }
       />
+      {exportLines.isError && (
+        <div className="mb-4">
+          <Notice tone="refusal" title="The export could not be made">
+            {exportLines.error.message} Nothing was downloaded.
+          </Notice>
+        </div>
+      )}
       <LineFilterBar filters={filters} facets={data?.facets} onChange={update} />
       {error && !data && (
         <Notice tone="refusal" title="The register could not be loaded">

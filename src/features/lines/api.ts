@@ -1,5 +1,5 @@
-import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import { api, toSearch } from '@/lib/api-client';
+import { keepPreviousData, queryOptions, useMutation } from '@tanstack/react-query';
+import { api, saveFile, toSearch } from '@/lib/api-client';
 import type { LineDetailDto, LineListResponse } from '@shared/schemas/lines';
 import { exportFilters, type LineFilters } from '@/features/lines/filters';
 
@@ -21,5 +21,18 @@ export const lineQueries = {
     }),
 };
 
-/** A plain link to the CSV export of what the table currently shows (every page). */
+/** The CSV export of what the table currently shows (every page). */
 export const lineExportHref = (filters: LineFilters) => `/api/lines/export.csv${toSearch(exportFilters(filters))}`;
+
+/**
+ * Fetches the export and hands it to the browser as a download; a refusal or failure stays in the
+ * page as the mutation's error instead of arriving as a file that holds an error message.
+ */
+export function useExportLines() {
+  return useMutation({
+    mutationFn: async (filters: LineFilters) => {
+      const { blob, filename } = await api.download(lineExportHref(filters));
+      saveFile(blob, filename ?? 'line-register.csv');
+    },
+  });
+}
