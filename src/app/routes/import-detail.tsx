@@ -6,7 +6,7 @@ import { ApiRequestError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/format';
 import { ensureOrShowRefusal } from '@/lib/loaders';
 import { queryClient } from '@/lib/query-client';
-import { lineImportQueries, useConfirmImport, type ImportRowFilters } from '@/features/line-imports/api';
+import { lineImportQueries, useCancelImport, useConfirmImport, type ImportRowFilters } from '@/features/line-imports/api';
 import { lineQueries } from '@/features/lines/api';
 import { ImportStatusPanel } from '@/features/line-imports/components/import-status';
 import { ImportRowsTable } from '@/features/line-imports/components/import-rows-table';
@@ -33,6 +33,7 @@ export default function ImportDetailPage() {
   const filters = useMemo(() => rowFilters(params), [params]);
   const { data: imp, error } = useQuery(lineImportQueries.detail(id));
   const confirm = useConfirmImport(id);
+  const cancel = useCancelImport(id);
   // A cancelled import's preview rows are gone with it.
   const rowsReady = !!imp && imp.status !== 'previewing' && imp.status !== 'cancelled' && imp.totalRows > 0;
   const rows = useQuery({ ...lineImportQueries.rows(id, filters), enabled: rowsReady });
@@ -85,6 +86,9 @@ export default function ImportDetailPage() {
           confirmError={confirm.error?.message}
           // Refused as stale or already confirmed: pressing again cannot help.
           confirmRefused={confirm.error instanceof ApiRequestError && confirm.error.status === 409}
+          onCancel={() => cancel.mutate()}
+          cancelling={cancel.isPending}
+          cancelError={cancel.error?.message}
         />
       </div>
       {rowsReady && (

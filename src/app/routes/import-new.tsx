@@ -5,6 +5,7 @@ import { may, whoMay } from '@shared/permissions';
 import { useUploadImport } from '@/features/line-imports/api';
 import { CsvDropZone } from '@/features/line-imports/components/csv-drop-zone';
 import { CsvFormat } from '@/features/line-imports/components/csv-formats';
+import { PastImports } from '@/features/line-imports/components/past-imports';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 
@@ -45,6 +46,9 @@ export default function ImportNewPage() {
           <div className="space-y-4">
             <CsvFormat kind="lines" />
             <CsvFormat kind="isolation-points" />
+          </div>
+          <div className="lg:col-span-2">
+            <PastImports />
           </div>
         </div>
       )}

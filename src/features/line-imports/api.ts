@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation } from '@tanstack/react-query';
 import { api, toSearch } from '@/lib/api-client';
 import { queryClient } from '@/lib/query-client';
-import type { ImportRowsResponse, ImportStatus, LineImportDto, RowOutcome } from '@shared/schemas/line-imports';
+import type { ImportListResponse, ImportRowsResponse, ImportStatus, LineImportDto, RowOutcome } from '@shared/schemas/line-imports';
 
 export interface ImportRowFilters {
   page: number;
@@ -15,6 +15,14 @@ const POLL_MS = 1000;
 
 export const lineImportQueries = {
   all: () => ['line-imports'] as const,
+  /** Past imports, newest first; polled while one of them is still being read or written. */
+  list: (page: number, pageSize = 10) =>
+    queryOptions({
+      queryKey: [...lineImportQueries.all(), 'list', { page, pageSize }],
+      queryFn: () => api.get<ImportListResponse>(`/api/line-imports${toSearch({ page, pageSize })}`),
+      placeholderData: keepPreviousData,
+      refetchInterval: (query) => (query.state.data?.rows.some((r) => isBusy(r.status)) ? POLL_MS * 2 : false),
+    }),
   details: () => [...lineImportQueries.all(), 'detail'] as const,
   detail: (id: string) =>
     queryOptions({
@@ -50,6 +58,18 @@ export function useConfirmImport(id: string) {
     mutationFn: () => api.post<LineImportDto>(`/api/line-imports/${encodeURIComponent(id)}/confirm`),
     onSuccess: remember,
     // A refusal (confirmed twice, stale) may mean the import moved on: read it again.
+    onError: () => queryClient.invalidateQueries({ queryKey: lineImportQueries.detail(id).queryKey, exact: true }),
+  });
+}
+
+/** Cancels an import that has not been written: its preview is dropped and nothing reaches the register. */
+export function useCancelImport(id: string) {
+  return useMutation({
+    mutationFn: () => api.post<LineImportDto>(`/api/line-imports/${encodeURIComponent(id)}/cancellation`),
+    onSuccess: (imp) => {
+      remember(imp);
+      void queryClient.invalidateQueries({ queryKey: [...lineImportQueries.all(), 'list'] });
+    },
     onError: () => queryClient.invalidateQueries({ queryKey: lineImportQueries.detail(id).queryKey, exact: true }),
   });
 }

@@ -9,8 +9,23 @@ const noun = (imp: LineImportDto, n: number) => (imp.kind === 'lines' ? (n === 1
 const rows = (n: number) => `${n} ${n === 1 ? 'row' : 'rows'}`;
 
 /** Where the import stands, and the one decision a preview asks for: write it, or go back. */
-export function ImportStatusPanel(props: { imp: LineImportDto; onConfirm: () => void; confirming: boolean; confirmError?: string; confirmRefused?: boolean }) {
-  const { imp, onConfirm, confirming, confirmError, confirmRefused } = props;
+export function ImportStatusPanel(props: {
+  imp: LineImportDto;
+  onConfirm: () => void;
+  confirming: boolean;
+  confirmError?: string;
+  confirmRefused?: boolean;
+  /** Cancels the import (nothing written, its preview dropped). */
+  onCancel: () => void;
+  cancelling: boolean;
+  cancelError?: string;
+}) {
+  const { imp, onConfirm, confirming, confirmError, confirmRefused, onCancel, cancelling, cancelError } = props;
+  const cancelProblem = cancelError && (
+    <Notice tone="refusal" title="The import was not cancelled">
+      {cancelError}
+    </Notice>
+  );
   const { counts } = imp;
   const writes = counts.new + counts.changed;
 
@@ -21,7 +36,13 @@ export function ImportStatusPanel(props: { imp: LineImportDto; onConfirm: () => 
           value={imp.progress}
           label={imp.status === 'previewing' ? `Checking ${imp.totalRows ? rows(imp.totalRows) : 'the file'} against the register…` : `Writing ${writes} ${noun(imp, writes)} to the register…`}
         />
-        <p className="mt-2 text-sm text-ink-soft">You can leave this page; the work goes on and this import stays here to come back to.</p>
+        <div className="mt-2 flex flex-wrap items-center justify-between gap-3">
+          <p className="text-sm text-ink-soft">You can leave this page; the work goes on and this import stays here to come back to.</p>
+          <Button variant="secondary" onClick={onCancel} disabled={cancelling}>
+            {cancelling ? 'Cancelling…' : 'Cancel this import'}
+          </Button>
+        </div>
+        {cancelProblem && <div className="mt-3">{cancelProblem}</div>}
       </Card>
     );
   }
@@ -80,13 +101,20 @@ export function ImportStatusPanel(props: { imp: LineImportDto; onConfirm: () => 
           {confirmError}
         </Notice>
       )}
+      {cancelProblem}
       <div className="flex flex-wrap items-center gap-3">
         <Button onClick={onConfirm} disabled={confirming || writes === 0 || confirmRefused}>
           {confirming ? 'Writing…' : writes === 0 ? 'Nothing to write' : `Write ${counts.new} new and ${counts.changed} changed ${noun(imp, writes)} to the register`}
         </Button>
-        <ButtonLink to="/imports/new" variant="ghost">
-          {confirmRefused ? 'Upload the file again' : 'Cancel and choose another file'}
-        </ButtonLink>
+        {confirmRefused ? (
+          <ButtonLink to="/imports/new" variant="ghost">
+            Upload the file again
+          </ButtonLink>
+        ) : (
+          <Button variant="ghost" onClick={onCancel} disabled={cancelling || confirming}>
+            {cancelling ? 'Cancelling…' : 'Cancel this import'}
+          </Button>
+        )}
       </div>
     </Card>
   );
