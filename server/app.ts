@@ -17,6 +17,9 @@ import { lineImportRoutes } from '@server/routes/line-import-routes';
 import { calcRoutes } from '@server/routes/calc-routes';
 import { plantSettingsRoutes } from '@server/routes/plant-settings-routes';
 import { healthRoutes } from '@server/routes/health-routes';
+import { workOrderRoutes } from '@server/routes/work-order-routes';
+import { jointTaskRoutes } from '@server/routes/joint-task-routes';
+import { scheduleRoutes } from '@server/routes/schedule-routes';
 
 const PgStore = connectPgSimple(session);
 
@@ -62,6 +65,9 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/line-imports', lineImportRoutes);
   app.use('/api/calc', calcRoutes);
   app.use('/api/plant-settings', plantSettingsRoutes);
+  app.use('/api/work-orders', workOrderRoutes);
+  app.use('/api/joint-tasks', jointTaskRoutes);
+  app.use('/api/schedule', scheduleRoutes);
   app.use('/api', notFound);
 
   const dist = path.resolve(config.clientDist);

@@ -7,6 +7,7 @@ import { Person } from '@server/db/models/person';
 import type { MailJob, MailPurpose } from '@server/queues/mail';
 import type { OutgoingMail } from './send-mail';
 import { lineImportApplied, lineImportFailed } from './templates/line-import-outcome';
+import { latePlanMail } from './work-order-mail';
 
 type Composer = (recordId: string) => Promise<OutgoingMail | null>;
 
@@ -21,6 +22,7 @@ const importMail = (render: typeof lineImportApplied): Composer => async (import
 const COMPOSERS: Record<MailPurpose, Composer> = {
   'line-import-applied': importMail(lineImportApplied),
   'line-import-failed': importMail(lineImportFailed),
+  'work-order-planned-late': latePlanMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

@@ -4,7 +4,7 @@ import { Person } from '@server/db/models/person';
 import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
 import { DEFAULT_CURE_SCHEDULE_ID, listCureSchedules } from '@shared/trade';
-import type { PlantSettings, PlantSettingsBody } from '@shared/schemas/plant-settings';
+import { DEFAULT_TIME_ZONE, effectiveWindowPlan, type PlantSettings, type PlantSettingsBody } from '@shared/schemas/plant-settings';
 import type { Me } from '@shared/schemas/roles';
 
 const SETTINGS_ID = 1;
@@ -17,6 +17,7 @@ function describeSchedule(id: string) {
 async function toDto(row: PlantSetting | null): Promise<PlantSettings> {
   const cureScheduleId = row?.cureScheduleId ?? DEFAULT_CURE_SCHEDULE_ID;
   const who = row?.updatedById ? await Person.findByPk(row.updatedById) : null;
+  const windowPlan = effectiveWindowPlan(row?.windowPlan);
   return {
     cureScheduleId,
     testCap: row?.testCap ?? 'rating',
@@ -24,8 +25,14 @@ async function toDto(row: PlantSetting | null): Promise<PlantSettings> {
     schedule: describeSchedule(cureScheduleId),
     updatedAt: row?.updatedById ? row.updatedAt.toISOString() : null,
     updatedBy: who ? { id: who.id, name: who.name } : null,
+    timeZone: row?.timeZone ?? DEFAULT_TIME_ZONE,
+    windowPlan: windowPlan.values,
+    atDefault: [...(row?.timeZone ? [] : ['timeZone']), ...windowPlan.defaults.map((k) => `windowPlan.${k}`)],
   };
 }
+
+/** A time zone as the runtime names it ("america/chicago" → "America/Chicago"). */
+const canonicalZone = (tz: string) => new Intl.DateTimeFormat('en', { timeZone: tz }).resolvedOptions().timeZone;
 
 export async function currentPlantSettings(): Promise<PlantSettings> {
   return toDto(await PlantSetting.findByPk(SETTINGS_ID));
@@ -52,9 +59,19 @@ export async function setPlantSettings(actor: Me, body: PlantSettingsBody): Prom
   const row = await sequelize.transaction(async (transaction) => {
     const [setting, created] = await PlantSetting.findOrCreate({ where: { id: SETTINGS_ID }, defaults: { id: SETTINGS_ID, updatedById: null, version: 0 }, transaction, lock: transaction.LOCK.UPDATE });
     if (!created && setting.version !== body.version) throw await staleSave(setting);
-    const before = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap };
-    await setting.update({ cureScheduleId: body.cureScheduleId, testCap: body.testCap, updatedById: actor.id, version: setting.version + 1 }, { transaction });
-    const after = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap };
+    const before = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan };
+    await setting.update(
+      {
+        cureScheduleId: body.cureScheduleId,
+        testCap: body.testCap,
+        ...(body.timeZone === undefined ? {} : { timeZone: body.timeZone === null ? null : canonicalZone(body.timeZone) }),
+        ...(body.windowPlan === undefined ? {} : { windowPlan: body.windowPlan }),
+        updatedById: actor.id,
+        version: setting.version + 1,
+      },
+      { transaction },
+    );
+    const after = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan };
     await recordAudit({ actorId: actor.id, action: 'plant-settings-set', entity: 'plant-settings', entityId: String(SETTINGS_ID), before, after }, transaction);
     return setting;
   });

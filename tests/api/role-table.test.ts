@@ -47,6 +47,19 @@ const TABLE: Row[] = [
   { route: 'POST /api/calc/joint', allow: 'calc.use', body: {} }, // an empty joint: 400
   { route: 'GET /api/plant-settings', allow: 'plantSettings.read' },
   { route: 'PUT /api/plant-settings', allow: 'plantSettings.edit', body: { testCap: 'not-a-cap' } }, // 400, nothing changes
+  { route: 'GET /api/work-orders', allow: 'workOrders.read' },
+  { route: 'POST /api/work-orders', allow: 'workOrders.plan', body: {} }, // no fields: 400
+  { route: 'GET /api/work-orders/:id', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}` },
+  { route: 'PATCH /api/work-orders/:id', allow: 'workOrders.plan', sample: `/api/work-orders/${NO_ID}`, body: {} }, // no version: 400
+  { route: 'POST /api/work-orders/:id/plan', allow: 'workOrders.plan', sample: `/api/work-orders/${NO_ID}/plan` }, // no such order: 404
+  { route: 'POST /api/work-orders/:id/cancellation', allow: 'workOrders.plan', sample: `/api/work-orders/${NO_ID}/cancellation`, body: {} }, // no reason: 400
+  { route: 'POST /api/work-orders/:id/joint-tasks', allow: 'workOrders.plan', sample: `/api/work-orders/${NO_ID}/joint-tasks`, body: {} },
+  { route: 'GET /api/work-orders/:id/isolation-plan', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/isolation-plan` },
+  { route: 'PUT /api/work-orders/:id/isolation-plan', allow: 'workOrders.plan', sample: `/api/work-orders/${NO_ID}/isolation-plan`, body: {} },
+  { route: 'GET /api/work-orders/:id/window-plan', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/window-plan` },
+  { route: 'DELETE /api/joint-tasks/:id', allow: 'workOrders.plan', sample: `/api/joint-tasks/${NO_ID}` }, // no such task: 404
+  { route: 'PUT /api/joint-tasks/:id/fitter', allow: 'workOrders.plan', sample: `/api/joint-tasks/${NO_ID}/fitter`, body: {} },
+  { route: 'GET /api/schedule', allow: 'workOrders.read' }, // no range: 400
 ];
 
 /** The roles a row lets through, read from the permission table. */

@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
-import type { TestCap } from '@shared/schemas/plant-settings';
+import type { TestCap, WindowPlanSettings } from '@shared/schemas/plant-settings';
 
 /** The plant's one settings row (id 1): which published cure schedule and which test cap it uses. */
 export class PlantSetting extends Model<InferAttributes<PlantSetting>, InferCreationAttributes<PlantSetting>> {
@@ -8,6 +8,10 @@ export class PlantSetting extends Model<InferAttributes<PlantSetting>, InferCrea
   declare cureScheduleId: CreationOptional<string>;
   declare testCap: CreationOptional<TestCap>;
   declare updatedById: string | null;
+  /** The window-plan minutes an administrator set; keys left out are the defaults. */
+  declare windowPlan: CreationOptional<Partial<WindowPlanSettings>>;
+  /** IANA name; null is the default (DEFAULT_TIME_ZONE). */
+  declare timeZone: CreationOptional<string | null>;
   /** Raised by every save; a save from an older version is refused (two admins at once). */
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -20,6 +24,8 @@ PlantSetting.init(
     cureScheduleId: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'A' },
     testCap: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'rating' },
     updatedById: { type: DataTypes.UUID },
+    windowPlan: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+    timeZone: { type: DataTypes.TEXT },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
