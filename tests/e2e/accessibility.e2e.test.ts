@@ -4,16 +4,22 @@ import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
 import { LineImport } from '@server/db/models/line-import';
+import { WorkOrder } from '@server/db/models/work-order';
 import { APP } from '../helpers/browserless';
 import { signedInPage, useBrowserApp, VIEWPORTS } from '../helpers/chromium';
 import { lineRow, testPrefix, toCsv } from '../helpers/import-csv';
 import { makeIsolationPoint, makeLines } from '../helpers/line-rows';
+import { plannableOrder, plantForWorkOrders, windowOf } from '../helpers/work-orders';
 
 type Username = 'planner' | 'admin';
 /** What a page needs that the test makes first. */
 interface Made {
   lineNumber: string;
   importId: string;
+  /** An order whose plan fits its window, and one whose 2-hour window is too short. */
+  orderId: string;
+  orderNumber: string;
+  lateOrderId: string;
 }
 interface PageCase {
   name: string;
@@ -36,6 +42,12 @@ const PAGES: PageCase[] = [
   { name: 'the joint calculator', as: 'planner', path: () => '/calculator', shows: '✓ Checked by the server' },
   { name: 'People & roles', as: 'admin', path: () => '/admin/people', shows: 'Kit Morrow' },
   { name: 'plant settings', as: 'admin', path: () => '/admin/plant', shows: 'Save plant settings' },
+  { name: 'the work orders', as: 'planner', path: () => '/work-orders', shows: 'What the states mean' },
+  { name: 'a work order whose plan fits', as: 'planner', path: (m) => `/work-orders/${m.orderId}`, shows: 'The plan fits the window' },
+  { name: 'a work order whose plan is late', as: 'planner', path: (m) => `/work-orders/${m.lateOrderId}`, shows: 'The plan does not fit the window' },
+  { name: 'a new work order', as: 'planner', path: () => '/work-orders/new', shows: 'Create the order' },
+  { name: 'editing a work order', as: 'planner', path: (m) => `/work-orders/${m.orderId}/edit`, shows: 'Save the changes' },
+  { name: 'the schedule', as: 'planner', path: () => '/schedule?week=2027-03-01', shows: 'Next week' },
   { name: 'sign-in', as: null, path: () => '/sign-in', shows: 'Sign in with the plant directory' },
   { name: 'a page that does not exist', as: 'planner', path: () => '/no-such-page', shows: 'There is no page here' },
 ];
@@ -51,7 +63,7 @@ interface Violation {
   targets: string[];
 }
 
-const { users, browser } = useBrowserApp({ signIn: ['planner'] });
+const { users, browser } = useBrowserApp({ signIn: ['planner'], before: plantForWorkOrders });
 const prefix = testPrefix('A11Y');
 let made: Made;
 const contexts = new Map<Username | null, BrowserContext>();
@@ -66,10 +78,13 @@ beforeAll(async () => {
     lineRow(`${prefix}-901`, { material: 'HDPE' }),
   ]));
   expect(upload.status).toBe(201);
-  made = { lineNumber: line.lineNumber, importId: upload.body.id };
+  const order = await plannableOrder(users.planner, [line]);
+  const late = await plannableOrder(users.planner, [line], { over: { ...windowOf('2027-03-08T06:00:00-06:00', 2), forecastLowF: 34 } });
+  made = { lineNumber: line.lineNumber, importId: upload.body.id, orderId: order.id, orderNumber: order.number, lateOrderId: late.id };
 });
 afterAll(async () => {
   if (made) await LineImport.destroy({ where: { id: made.importId } });
+  if (made) await WorkOrder.destroy({ where: { id: [made.orderId, made.lateOrderId] } }); // its joints and plan go with it
   await Line.destroy({ where: { lineNumber: { [Op.like]: `${prefix}-%` } } });
   for (const context of contexts.values()) await context.close();
 });

@@ -6,6 +6,10 @@ import { lineQueries } from '@/features/lines/api';
 import { LineStatusMark } from '@/features/lines/components/line-status';
 import { ChemicalServiceCaution, LineFacts } from '@/features/lines/components/line-facts';
 import { IsolationPointsTable } from '@/features/lines/components/isolation-points-table';
+import { workOrderQueries } from '@/features/work-orders/api';
+import { LineOrdersList } from '@/features/work-orders/components/line-orders-list';
+import { authQueries } from '@/lib/auth';
+import { may } from '@shared/permissions';
 import { Card, PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 
@@ -17,6 +21,8 @@ export default function LineDetailPage() {
   const { state } = useLocation() as { state?: { registerSearch?: string } };
   const back = `/lines${state?.registerSearch ?? ''}`;
   const { data: line, error, isPending } = useQuery(lineQueries.detail(lineNumber));
+  const { data: me } = useQuery(authQueries.me());
+  const orders = useQuery({ ...workOrderQueries.list({ line: [lineNumber], sort: 'windowStart', dir: 'desc', pageSize: 20 }), enabled: may(me, 'workOrders.read') });
 
   const backLink = (
     <Link to={back} className="inline-flex min-h-11 items-center font-medium text-tide hover:underline">
@@ -67,8 +73,13 @@ export default function LineDetailPage() {
           <Card title="Notes">
             {line.notes ? <p className="whitespace-pre-line text-sm">{line.notes}</p> : <p className="text-sm text-ink-faint">No notes.</p>}
           </Card>
-          <Card title="Work orders">
-            <p className="text-sm text-ink-soft">No work orders on this line yet. Repairs and tie-ins planned on it will be listed here.</p>
+          <Card title={orders.data ? `Work orders (${orders.data.total})` : 'Work orders'}>
+            {orders.error && <Notice tone="refusal" title="The line's work orders could not be loaded">{orders.error.message}</Notice>}
+            {orders.data && orders.data.total === 0 && <p className="text-sm text-ink-soft">No work orders on this line yet. Repairs and tie-ins planned on it will be listed here.</p>}
+            {orders.data && orders.data.total > 0 && <LineOrdersList rows={orders.data.rows} />}
+            {orders.data && orders.data.total > orders.data.rows.length && (
+              <Link to={`/work-orders?line=${encodeURIComponent(lineNumber)}`} className="inline-flex min-h-11 items-center font-medium text-tide hover:underline">All {orders.data.total} orders on this line</Link>
+            )}
           </Card>
         </div>
       </div>

@@ -1,5 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { NavLink, Outlet } from 'react-router-dom';
+import { ButtonLink } from '@/components/ui/button';
 import { authQueries, signOut } from '@/lib/auth';
 import { may, type Action } from '@shared/permissions';
 import { ROLE_LABELS } from '@shared/schemas/roles';
@@ -7,6 +8,8 @@ import { ROLE_LABELS } from '@shared/schemas/roles';
 /** A page with an action is offered to those the permission table lets do it; the rest to everyone signed in. */
 const NAV: { to: string; label: string; action?: Action }[] = [
   { to: '/lines', label: 'Line register' },
+  { to: '/work-orders', label: 'Work orders', action: 'workOrders.read' },
+  { to: '/schedule', label: 'Schedule', action: 'workOrders.read' },
   { to: '/imports/new', label: 'Import lines', action: 'lines.import' },
   { to: '/calculator', label: 'Joint calculator' },
   { to: '/admin/people', label: 'People & roles', action: 'people.manage' },
@@ -39,6 +42,14 @@ export function AppShell() {
               </NavLink>
             ))}
           </nav>
+          {may(me, 'workOrders.plan') && (
+            // Below xl the pages' own "New work order" buttons stand in, so the navigation keeps its room.
+            <span className="hidden xl:block">
+              <ButtonLink to="/work-orders/new" className="whitespace-nowrap">
+                New work order
+              </ButtonLink>
+            </span>
+          )}
           {me && (
             <div className="flex items-center gap-3 text-sm">
               <span className="hidden text-right leading-tight md:block">
