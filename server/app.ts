@@ -17,6 +17,7 @@ import { lineImportRoutes } from '@server/routes/line-import-routes';
 import { calcRoutes } from '@server/routes/calc-routes';
 import { plantSettingsRoutes } from '@server/routes/plant-settings-routes';
 import { healthRoutes } from '@server/routes/health-routes';
+import { openApiRoutes } from '@server/routes/openapi-routes';
 import { workOrderRoutes } from '@server/routes/work-order-routes';
 import { jointTaskRoutes } from '@server/routes/joint-task-routes';
 import { scheduleRoutes } from '@server/routes/schedule-routes';
@@ -57,6 +58,7 @@ export function createApp(opts: AppOptions = {}) {
   );
 
   app.use('/api/health', healthRoutes);
+  app.use('/api/openapi.json', openApiRoutes); // public: the API's shape, no data
   app.use('/auth', sameOrigin, authRoutes);
   app.use('/api', sameOrigin, requireSignIn);
   app.use('/api/me', meRoutes);

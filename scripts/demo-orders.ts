@@ -1,0 +1,169 @@
+// The demo plant's work orders: a handful of invented orders on Marrowby Reach Works' lines, in
+// different states, made through the product's own services as the demo people would make them
+// (the planner Ines Varga, for the operations shift lead Maud Okafor). Windows fall in the coming
+// days, counted from the moment of loading. Loaded once: scripts/seed-demo.ts runs it after the
+// plant, an audit entry 'demo-orders-loaded' marks it done, and an order whose scope is already
+// there is never made again (so a load cut short does not double the ones it made).
+
+import { Op } from 'sequelize';
+import { now } from '@server/clock';
+import { config } from '@server/config';
+import { AuditEntry } from '@server/db/models/audit-entry';
+import { Line } from '@server/db/models/line';
+import { Person } from '@server/db/models/person';
+import { WorkOrder } from '@server/db/models/work-order';
+import { recordAudit } from '@server/services/audit-service';
+import { effectiveRoles } from '@server/services/people-service';
+import { getIsolationPlan, setIsolationPlan } from '@server/services/work-orders/isolation-plan';
+import { addJointTasks, setFitter } from '@server/services/work-orders/joint-tasks';
+import { createOrder } from '@server/services/work-orders/order-service';
+import { cancelOrder, submitPlan } from '@server/services/work-orders/plan-service';
+import { isolationPlanBodySchema } from '@shared/schemas/isolation-plans';
+import { jointTasksAddSchema, type FittingKind } from '@shared/schemas/joint-tasks';
+import type { Me } from '@shared/schemas/roles';
+import { workOrderCreateSchema, type Priority, type WorkOrderKind, type WorkOrderState } from '@shared/schemas/work-orders';
+import { DEMO_ACCOUNTS } from './demo-accounts';
+
+interface DemoOrder {
+  line: string;
+  kind: WorkOrderKind;
+  priority: Priority;
+  scope: string;
+  /** The window: days from the day of loading, the hour it starts (UTC) and its length; null: not booked yet. */
+  window: { day: number; hour: number; hours: number } | null;
+  forecast: { lowF: number; highRh: number };
+  joints: { fitting: FittingKind; count: number; reducingSize?: string }[];
+  /** The username of the fitter the joints go to. */
+  fitter?: 'fitter' | 'fitter2';
+  /** Where the order is left. */
+  state: Extract<WorkOrderState, 'draft' | 'planned' | 'cancelled'>;
+  lateReason?: string;
+  cancelReason?: string;
+}
+
+export const DEMO_ORDERS: DemoOrder[] = [
+  {
+    line: '100-SA-001', kind: 'repair', priority: 'urgent', state: 'planned', fitter: 'fitter',
+    scope: 'Weep at the coupling downstream of the dosing pump discharge valve. Cut out 18" of pipe, replace with two couplings and a union for the pump.',
+    window: { day: 2, hour: 6, hours: 24 }, forecast: { lowF: 68, highRh: 45 },
+    joints: [{ fitting: 'coupling', count: 2 }, { fitting: 'union', count: 1 }],
+  },
+  {
+    line: '100-SA-001', kind: 'tie-in', priority: 'routine', state: 'draft',
+    scope: 'Add a sample point: a tee with a 1/2" branch and a sample valve, near the day tank. Overlaps the coupling repair; move it or fold it into that order.',
+    window: { day: 2, hour: 10, hours: 8 }, forecast: { lowF: 68, highRh: 45 },
+    joints: [{ fitting: 'tee', count: 1, reducingSize: '1/2' }, { fitting: 'cap', count: 1 }],
+  },
+  {
+    line: '300-FW-001', kind: 'tie-in', priority: 'soon', state: 'planned', fitter: 'fitter2',
+    scope: 'Tie in a 2" bypass around the filtered-water flow meter: a reducing tee and two couplings on the 3" line.',
+    window: { day: 3, hour: 7, hours: 6 }, forecast: { lowF: 45, highRh: 70 },
+    joints: [{ fitting: 'tee', count: 1, reducingSize: '2' }, { fitting: 'coupling', count: 2 }],
+    lateReason: 'Operations can give the filtered-water line for a six-hour slot only this week. The section stays isolated after the slot under the supervisor\'s watch and is tested on the evening round.',
+  },
+  {
+    line: '200-NA-001', kind: 'replacement', priority: 'soon', state: 'draft',
+    scope: 'Replace the heat-traced caustic run between the day tank and the dosing skid: four elbows and two couplings. Trace and insulation off first.',
+    window: { day: 5, hour: 6, hours: 24 }, forecast: { lowF: 60, highRh: 55 },
+    joints: [{ fitting: 'elbow-90', count: 4 }, { fitting: 'coupling', count: 2 }],
+  },
+  {
+    line: '400-UPW-001', kind: 'repair', priority: 'routine', state: 'draft',
+    scope: 'Cracked socket flange at the polishing filter outlet. Clean build: bagged fittings, no pipe dope. Window to be booked with operations.',
+    window: null, forecast: { lowF: 70, highRh: 40 },
+    joints: [{ fitting: 'socket-flange', count: 1 }, { fitting: 'coupling', count: 1 }],
+  },
+  {
+    line: '300-CW-001', kind: 'repair', priority: 'soon', state: 'planned', fitter: 'fitter2',
+    scope: 'Replace the reducing bushing at the cooling-water strainer drain and the elbow after it.',
+    window: { day: 4, hour: 6, hours: 16 }, forecast: { lowF: 72, highRh: 50 },
+    joints: [{ fitting: 'reducing-bushing', count: 1, reducingSize: '2' }, { fitting: 'elbow-90', count: 1 }],
+  },
+  {
+    line: '500-AD-001', kind: 'repair', priority: 'soon', state: 'cancelled',
+    scope: 'Drip reported on the acid drain line at the pit wall: replace the coupling there.',
+    window: { day: 1, hour: 6, hours: 12 }, forecast: { lowF: 66, highRh: 60 },
+    joints: [{ fitting: 'coupling', count: 1 }],
+    cancelReason: 'The leak was at a flange gasket, not a solvent-cemented joint; passed to the mechanical crew.',
+  },
+];
+
+/** The demo lines the orders are on. */
+export const DEMO_ORDER_LINES = [...new Set(DEMO_ORDERS.map((o) => o.line))];
+
+/** A demo account as a person of the plant, as its first sign-in through the local provider would make it. */
+async function demoPerson(username: string): Promise<Me> {
+  const account = DEMO_ACCOUNTS.find((a) => a.username === username)!;
+  const [p] = await Person.findOrCreate({
+    where: { issuer: config.oidc.issuer, subject: username },
+    defaults: { issuer: config.oidc.issuer, subject: username, name: account.name, email: account.email, rolesFromIdp: [account.role], lastSignInAt: null },
+  });
+  return { id: p.id, name: p.name, email: p.email, roles: effectiveRoles(p) };
+}
+
+/** `day` days after the day of `from` (UTC), at `hour`. */
+const at = (from: Date, day: number, hour: number) => new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + day, hour)).toISOString();
+
+async function makeOrder(spec: DemoOrder, line: Line, people: { planner: Me; requester: Me; fitters: Record<string, Me> }, from: Date): Promise<WorkOrder> {
+  const { planner } = people;
+  const order = await createOrder(planner, workOrderCreateSchema.parse({
+    kind: spec.kind, priority: spec.priority, scope: spec.scope, requestedBy: people.requester.name, lineIds: [line.id],
+    windowStart: spec.window ? at(from, spec.window.day, spec.window.hour) : null,
+    windowEnd: spec.window ? at(from, spec.window.day, spec.window.hour + spec.window.hours) : null,
+    forecastLowF: spec.forecast.lowF, forecastHighRh: spec.forecast.highRh,
+  }));
+  for (const j of spec.joints) {
+    const tasks = await addJointTasks(planner, order.id, jointTasksAddSchema.parse({ lineId: line.id, fittingKind: j.fitting, count: j.count, reducingSize: j.reducingSize }));
+    const fitter = spec.fitter && people.fitters[spec.fitter];
+    // A demo fitter whose role an administrator withdrew keeps no tasks: the order is still made.
+    if (fitter?.roles.includes('fitter')) for (const t of tasks) await setFitter(planner, t.id, fitter.id);
+  }
+  const { suggested } = await getIsolationPlan(order.id);
+  const code = line.lineNumber.replace(/-/g, '');
+  await setIsolationPlan(planner, order.id, isolationPlanBodySchema.parse({
+    entries: [
+      ...suggested.map((p) => ({ isolationPointId: p.isolationPointId })),
+      { lineId: line.id, tag: `DR-${code}-${order.number.slice(-4)}`, kind: 'drain' },
+      { lineId: line.id, tag: `VT-${code}-${order.number.slice(-4)}`, kind: 'vent' },
+    ],
+  }));
+  if (spec.state !== 'draft') await submitPlan(planner, order.id, spec.lateReason ? { lateReason: spec.lateReason } : {});
+  if (spec.state === 'cancelled') await cancelOrder(planner, order.id, spec.cancelReason!);
+  return (await WorkOrder.findByPk(order.id))!;
+}
+
+export interface DemoOrdersResult {
+  loaded: boolean;
+  message: string;
+  orders: { id: string; number: string; state: WorkOrderState; scope: string }[];
+}
+
+/**
+ * Makes the demo orders unless they were made before. Refuses nothing the plant has: when a demo
+ * line is gone from the register (a plant that replaced it with its own), it says so and makes none.
+ */
+export async function loadDemoOrders(opts: { from?: Date } = {}): Promise<DemoOrdersResult> {
+  const existing = () => WorkOrder.findAll({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } }, order: [['number', 'ASC']] });
+  const summary = (orders: WorkOrder[]) => orders.map((o) => ({ id: o.id, number: o.number, state: o.state, scope: o.scope }));
+  if (await AuditEntry.findOne({ where: { action: 'demo-orders-loaded' } })) {
+    return { loaded: false, message: 'the demo work orders were loaded before; they are left as they are.', orders: summary(await existing()) };
+  }
+  const lines = await Line.findAll({ where: { lineNumber: { [Op.in]: DEMO_ORDER_LINES } } });
+  const missing = DEMO_ORDER_LINES.filter((n) => !lines.some((l) => l.lineNumber === n));
+  if (missing.length) return { loaded: false, message: `no demo work orders: the register lacks the demo lines ${missing.join(', ')}.`, orders: [] };
+
+  const people = {
+    planner: await demoPerson('planner'),
+    requester: await demoPerson('operations'),
+    fitters: { fitter: await demoPerson('fitter'), fitter2: await demoPerson('fitter2') },
+  };
+  const made = new Set((await existing()).map((o) => o.scope));
+  const from = opts.from ?? now();
+  for (const spec of DEMO_ORDERS) {
+    if (made.has(spec.scope)) continue;
+    await makeOrder(spec, lines.find((l) => l.lineNumber === spec.line)!, people, from);
+  }
+  const orders = summary(await existing());
+  await recordAudit({ actorId: people.planner.id, action: 'demo-orders-loaded', entity: 'demo-plant', entityId: 'work-orders', after: { orders: orders.map((o) => o.number) } });
+  return { loaded: true, message: `${orders.length} demo work orders: ${orders.map((o) => `${o.number} ${o.state}`).join(', ')}.`, orders };
+}

@@ -1,0 +1,60 @@
+// The named schemas of the OpenAPI document: each shared zod schema a route validates with or
+// answers with, under the name it has in `components.schemas`. A schema left out of these lists is
+// written inline where it is used; one listed here is a `$ref`, inside other schemas too.
+
+import { z } from 'zod';
+import { apiErrorSchema } from '@shared/schemas/errors';
+import { isolationPlanBodySchema, isolationPlanEntrySchema, isolationPlanResponseSchema } from '@shared/schemas/isolation-plans';
+import { jointTaskFitterSchema, jointTaskSchema, jointTasksAddSchema } from '@shared/schemas/joint-tasks';
+import { importListResponseSchema, importRowSchema, importRowsResponseSchema, lineImportSchema } from '@shared/schemas/line-imports';
+import { isolationPointSchema, lineDetailSchema, lineListResponseSchema, lineSchema } from '@shared/schemas/lines';
+import { plantSettingsBodySchema, plantSettingsSchema } from '@shared/schemas/plant-settings';
+import { meSchema, personRolesBodySchema, personSchema } from '@shared/schemas/roles';
+import { materialsSchema, overlapSchema, scheduleResponseSchema, testPressureSchema, windowPlanSchema } from '@shared/schemas/work-order-plan';
+import {
+  historyEntrySchema, workOrderCancelSchema, workOrderCreateSchema, workOrderListResponseSchema, workOrderPlanSchema, workOrderRowSchema, workOrderSchema,
+  workOrderUpdateSchema,
+} from '@shared/schemas/work-orders';
+import { jointSpecSchema } from '@shared/trade';
+
+/** Request bodies, described as the client sends them (zod's input: defaults may be left out). */
+export const REQUEST_SCHEMAS: Record<string, z.ZodType> = {
+  PersonRolesBody: personRolesBodySchema,
+  JointSpec: jointSpecSchema,
+  PlantSettingsBody: plantSettingsBodySchema,
+  WorkOrderCreate: workOrderCreateSchema,
+  WorkOrderUpdate: workOrderUpdateSchema,
+  WorkOrderPlan: workOrderPlanSchema,
+  WorkOrderCancel: workOrderCancelSchema,
+  JointTasksAdd: jointTasksAddSchema,
+  JointTaskFitter: jointTaskFitterSchema,
+  IsolationPlanBody: isolationPlanBodySchema,
+};
+
+/** Answers, described as the server sends them (zod's output). */
+export const RESPONSE_SCHEMAS: Record<string, z.ZodType> = {
+  ApiError: apiErrorSchema,
+  Me: meSchema,
+  Person: personSchema,
+  Line: lineSchema,
+  IsolationPoint: isolationPointSchema,
+  LineDetail: lineDetailSchema,
+  LineList: lineListResponseSchema,
+  LineImport: lineImportSchema,
+  LineImportList: importListResponseSchema,
+  ImportRow: importRowSchema,
+  ImportRows: importRowsResponseSchema,
+  PlantSettings: plantSettingsSchema,
+  WorkOrderRow: workOrderRowSchema,
+  WorkOrderList: workOrderListResponseSchema,
+  WorkOrder: workOrderSchema,
+  HistoryEntry: historyEntrySchema,
+  JointTask: jointTaskSchema,
+  IsolationPlanEntry: isolationPlanEntrySchema,
+  IsolationPlan: isolationPlanResponseSchema,
+  Materials: materialsSchema,
+  TestPressure: testPressureSchema,
+  WindowPlan: windowPlanSchema,
+  Overlap: overlapSchema,
+  Schedule: scheduleResponseSchema,
+};

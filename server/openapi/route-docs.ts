@@ -1,0 +1,87 @@
+// Every route of the app, one entry each: what it does, who may call it, what it takes and what
+// it answers, from the same zod schemas the route validates with. tests/api/openapi.test.ts fails
+// when the router stack has a route this list lacks, or this list names a route that is gone.
+
+import { z } from 'zod';
+import type { Action } from '@shared/permissions';
+import { isolationPlanBodySchema, isolationPlanResponseSchema } from '@shared/schemas/isolation-plans';
+import { jointTaskFitterSchema, jointTaskIdParamsSchema, jointTaskSchema, jointTasksAddSchema } from '@shared/schemas/joint-tasks';
+import {
+  importIdParamsSchema, importListQuerySchema, importListResponseSchema, importRowsQuerySchema, importRowsResponseSchema, lineImportSchema,
+} from '@shared/schemas/line-imports';
+import { lineDetailSchema, lineExportQuerySchema, lineListQuerySchema, lineListResponseSchema, lineNumberParamsSchema } from '@shared/schemas/lines';
+import { plantSettingsBodySchema, plantSettingsSchema } from '@shared/schemas/plant-settings';
+import { meSchema, personIdParamsSchema, personRolesBodySchema, personSchema } from '@shared/schemas/roles';
+import { scheduleQuerySchema, scheduleResponseSchema, windowPlanSchema } from '@shared/schemas/work-order-plan';
+import {
+  workOrderCancelSchema, workOrderCreateSchema, workOrderIdParamsSchema, workOrderListQuerySchema, workOrderListResponseSchema, workOrderPlanSchema,
+  workOrderSchema, workOrderUpdateSchema,
+} from '@shared/schemas/work-orders';
+import { jointSpecSchema } from '@shared/trade';
+import * as S from './route-schemas';
+
+export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+
+export interface RouteDoc {
+  /** Method and path as Express has them, as in the role table: 'GET /api/work-orders/:id'. */
+  route: `${Method} /${string}`;
+  tag: string;
+  summary: string;
+  description?: string;
+  /** The permission the route is guarded by (shared/permissions.ts), 'signed-in' for any session, or 'public'. */
+  allow: Action | 'signed-in' | 'public';
+  params?: z.ZodObject;
+  query?: z.ZodObject;
+  /** A JSON body, or a multipart form. */
+  body?: z.ZodType | { multipart: z.ZodType };
+  /** The main answer: its status, and its schema (JSON) or content type. */
+  ok: { status: number; description: string; schema?: z.ZodType; contentType?: string; alsoStatus?: number };
+  /** Refusals besides the ones every route of its kind has (400, 401, 403, 404 are added from the entry). */
+  errors?: Partial<Record<number, string>>;
+}
+
+const id = workOrderIdParamsSchema;
+const CONFLICT = { 409: 'The order is not in a state that allows this, or the edit was made over a newer version.' };
+
+export const ROUTE_DOCS: RouteDoc[] = [
+  // the service and the document
+  { route: 'GET /api/health', tag: 'service', allow: 'public', summary: 'Whether the server reaches its database', ok: { status: 200, description: 'PostgreSQL answers', schema: S.healthResponseSchema } },
+  { route: 'GET /api/openapi.json', tag: 'service', allow: 'public', summary: 'This document', description: 'The API\'s description, built from the shared zod schemas. Public: it holds no data, only the shape of the API the client already carries.', ok: { status: 200, description: 'OpenAPI 3.1', schema: S.openApiDocumentSchema } },
+  // signing in
+  { route: 'GET /auth/login', tag: 'sign-in', allow: 'public', summary: 'Start a sign-in at the identity provider', query: S.signInQuerySchema, ok: { status: 302, description: 'Redirect to the identity provider' }, errors: { 429: 'Too many sign-in attempts from this address this minute.' } },
+  { route: 'GET /auth/callback', tag: 'sign-in', allow: 'public', summary: 'The identity provider\'s return: completes the sign-in', query: S.callbackQuerySchema, ok: { status: 302, description: 'Signed in; redirect to where the sign-in started' }, errors: { 400: 'No sign-in under way, or the provider\'s answer does not match it.', 429: 'Too many sign-in attempts from this address this minute.' } },
+  { route: 'POST /auth/logout', tag: 'sign-in', allow: 'public', summary: 'Sign out', description: 'Ends the session; signing out without one is harmless.', ok: { status: 200, description: 'Where to go next (the provider\'s sign-out page, or the app)', schema: S.signOutResponseSchema } },
+  // people
+  { route: 'GET /api/me', tag: 'people', allow: 'signed-in', summary: 'The signed-in person and their roles', ok: { status: 200, description: 'The person', schema: meSchema } },
+  { route: 'GET /api/people', tag: 'people', allow: 'people.manage', summary: 'Everyone who has signed in, with their roles', ok: { status: 200, description: 'People by name', schema: z.array(personSchema) } },
+  { route: 'PUT /api/people/:id/roles', tag: 'people', allow: 'people.manage', summary: 'Set a person\'s roles (grants and withdrawals against the provider\'s)', params: personIdParamsSchema, body: personRolesBodySchema, ok: { status: 200, description: 'The person', schema: personSchema }, errors: { 409: 'An administrator cannot withdraw their own admin role.' } },
+  // the line register
+  { route: 'GET /api/lines', tag: 'lines', allow: 'lines.read', summary: 'A page of the line register, sorted and filtered', query: lineListQuerySchema, ok: { status: 200, description: 'The page, the total and the filter facets', schema: lineListResponseSchema } },
+  { route: 'GET /api/lines/export.csv', tag: 'lines', allow: 'lines.read', summary: 'The register as CSV (the import\'s columns), sorted and filtered like the list', query: lineExportQuerySchema, ok: { status: 200, description: 'A CSV file; cells a spreadsheet would run are prefixed with \'', contentType: 'text/csv' } },
+  { route: 'GET /api/lines/:lineNumber', tag: 'lines', allow: 'lines.read', summary: 'One line with its isolation points', params: lineNumberParamsSchema, ok: { status: 200, description: 'The line', schema: lineDetailSchema } },
+  // importing the register
+  { route: 'GET /api/line-imports', tag: 'line imports', allow: 'lines.import', summary: 'Past imports, newest first', query: importListQuerySchema, ok: { status: 200, description: 'A page of imports', schema: importListResponseSchema } },
+  { route: 'POST /api/line-imports', tag: 'line imports', allow: 'lines.import', summary: 'Upload a register CSV file and preview every row', description: 'Files over IMPORT_INLINE_LIMIT rows preview in the worker (status `previewing`).', body: { multipart: S.uploadBodySchema }, ok: { status: 201, description: 'The import and its preview counts', schema: lineImportSchema } },
+  { route: 'GET /api/line-imports/:id', tag: 'line imports', allow: 'lines.import', summary: 'One import: status, counts, progress', params: importIdParamsSchema, ok: { status: 200, description: 'The import', schema: lineImportSchema } },
+  { route: 'GET /api/line-imports/:id/rows', tag: 'line imports', allow: 'lines.import', summary: 'A page of an import\'s previewed rows', params: importIdParamsSchema, query: importRowsQuerySchema, ok: { status: 200, description: 'The rows', schema: importRowsResponseSchema } },
+  { route: 'POST /api/line-imports/:id/confirm', tag: 'line imports', allow: 'lines.import', summary: 'Write the new and changed rows to the register, in one transaction', params: importIdParamsSchema, ok: { status: 200, alsoStatus: 202, description: 'Applied (200), or applying in the worker (202)', schema: lineImportSchema }, errors: { 409: 'The import is not previewed, or was applied or cancelled.' } },
+  { route: 'POST /api/line-imports/:id/cancellation', tag: 'line imports', allow: 'lines.import', summary: 'Cancel an import that is not applied', params: importIdParamsSchema, ok: { status: 200, description: 'The cancelled import', schema: lineImportSchema }, errors: { 409: 'The import was applied already.' } },
+  // the trade engine and the plant's settings
+  { route: 'POST /api/calc/joint', tag: 'calc', allow: 'calc.use', summary: 'Rating, set and cure times, test pressure and materials for one joint', body: jointSpecSchema, ok: { status: 200, description: 'The trade engine\'s picture of the joint; `ok: false` with `problems` when it refuses', schema: S.jointPictureSchema } },
+  { route: 'GET /api/plant-settings', tag: 'plant settings', allow: 'plantSettings.read', summary: 'The plant\'s cure schedule, test cap, time zone and window-plan minutes', ok: { status: 200, description: 'The settings, with those still at their default named', schema: plantSettingsSchema } },
+  { route: 'PUT /api/plant-settings', tag: 'plant settings', allow: 'plantSettings.edit', summary: 'Change the plant\'s settings', body: plantSettingsBodySchema, ok: { status: 200, description: 'The settings', schema: plantSettingsSchema }, errors: { 409: 'Saved over a newer version of the settings.' } },
+  // work orders
+  { route: 'GET /api/work-orders', tag: 'work orders', allow: 'workOrders.read', summary: 'A page of work orders, sorted and filtered', query: workOrderListQuerySchema, ok: { status: 200, description: 'The page and the total', schema: workOrderListResponseSchema } },
+  { route: 'POST /api/work-orders', tag: 'work orders', allow: 'workOrders.plan', summary: 'Create a draft work order on one or more lines', body: workOrderCreateSchema, ok: { status: 201, description: 'The order', schema: workOrderSchema } },
+  { route: 'GET /api/work-orders/:id', tag: 'work orders', allow: 'workOrders.read', summary: 'One order: lines, joint tasks, isolation plan, materials, test pressure, window plan, overlaps, history', params: id, ok: { status: 200, description: 'The order', schema: workOrderSchema } },
+  { route: 'PATCH /api/work-orders/:id', tag: 'work orders', allow: 'workOrders.plan', summary: 'Edit a draft or planned order', params: id, body: workOrderUpdateSchema, ok: { status: 200, description: 'The order', schema: workOrderSchema }, errors: CONFLICT },
+  { route: 'POST /api/work-orders/:id/plan', tag: 'work orders', allow: 'workOrders.plan', summary: 'Submit the plan: draft → planned', description: 'Needs a line, a joint task, an isolation plan and a window; a plan that does not fit its window needs `lateReason`, and operations and the requester are told by e-mail.', params: id, body: workOrderPlanSchema, ok: { status: 200, description: 'The planned order', schema: workOrderSchema }, errors: CONFLICT },
+  { route: 'POST /api/work-orders/:id/cancellation', tag: 'work orders', allow: 'workOrders.plan', summary: 'Cancel a draft or planned order, with a reason', params: id, body: workOrderCancelSchema, ok: { status: 200, description: 'The cancelled order', schema: workOrderSchema }, errors: CONFLICT },
+  { route: 'POST /api/work-orders/:id/joint-tasks', tag: 'work orders', allow: 'workOrders.plan', summary: 'Add joint tasks: `count` joints of one fitting on one of the order\'s lines', params: id, body: jointTasksAddSchema, ok: { status: 201, description: 'The new tasks (J1, J2 …)', schema: z.array(jointTaskSchema) }, errors: CONFLICT },
+  { route: 'GET /api/work-orders/:id/isolation-plan', tag: 'work orders', allow: 'workOrders.read', summary: 'The isolation plan, and the register\'s points of the order\'s lines to pre-fill it', params: id, ok: { status: 200, description: 'The plan and the suggestions', schema: isolationPlanResponseSchema } },
+  { route: 'PUT /api/work-orders/:id/isolation-plan', tag: 'work orders', allow: 'workOrders.plan', summary: 'Replace the isolation plan; a point not in the register joins it', params: id, body: isolationPlanBodySchema, ok: { status: 200, description: 'The plan', schema: isolationPlanResponseSchema }, errors: CONFLICT },
+  { route: 'GET /api/work-orders/:id/window-plan', tag: 'work orders', allow: 'workOrders.read', summary: 'The computed chain (isolation, joints, cure, test, release) against the booked window', params: id, ok: { status: 200, description: 'The window plan', schema: windowPlanSchema } },
+  { route: 'DELETE /api/joint-tasks/:id', tag: 'work orders', allow: 'workOrders.plan', summary: 'Remove a joint task (its number is not reused)', params: jointTaskIdParamsSchema, ok: { status: 204, description: 'Removed' }, errors: CONFLICT },
+  { route: 'PUT /api/joint-tasks/:id/fitter', tag: 'work orders', allow: 'workOrders.plan', summary: 'Assign a joint task to a fitter, or take it back', params: jointTaskIdParamsSchema, body: jointTaskFitterSchema, ok: { status: 200, description: 'The task', schema: jointTaskSchema }, errors: { ...CONFLICT, 400: 'The person does not hold the fitter role, or a field is not valid.' } },
+  { route: 'GET /api/schedule', tag: 'work orders', allow: 'workOrders.read', summary: 'Every order whose window falls in from–to (at most 62 days), with overlaps on a line or isolation point', query: scheduleQuerySchema, ok: { status: 200, description: 'The orders on the schedule', schema: scheduleResponseSchema } },
+];

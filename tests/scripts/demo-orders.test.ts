@@ -1,0 +1,83 @@
+import { Op } from 'sequelize';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
+import { JointTask } from '@server/db/models/joint-task';
+import { Line } from '@server/db/models/line';
+import { Person } from '@server/db/models/person';
+import { WorkOrder } from '@server/db/models/work-order';
+import { closeQueues } from '@server/queues/connection';
+import { getOrder } from '@server/services/work-orders/order-dto';
+import { confirmImport, uploadImport } from '@server/services/line-imports/import-service';
+import { DEMO_ORDERS, DEMO_ORDER_LINES, loadDemoOrders, type DemoOrdersResult } from '../../scripts/demo-orders';
+import { demoPlant, toCsv } from '../../scripts/demo-plant';
+
+/**
+ * The demo plant's work orders, made by the loader through the services on the demo lines. The
+ * test database is shared and kept between runs of one `--serve`: the lines are imported when they
+ * are missing, and the orders may already be there from an earlier run, which is the "once" case.
+ */
+async function importDemoLines(): Promise<void> {
+  if ((await Line.count({ where: { lineNumber: { [Op.in]: DEMO_ORDER_LINES } } })) === DEMO_ORDER_LINES.length) return;
+  const [person] = await Person.findOrCreate({ where: { issuer: 'linewright', subject: 'system' }, defaults: { issuer: 'linewright', subject: 'system', name: 'Linewright (demo loader)', email: null, lastSignInAt: null } });
+  const me = { id: person.id, name: person.name, email: null, roles: [] };
+  const { lines, points } = demoPlant();
+  const mine = <T extends { line_number: string }>(rows: T[]) => rows.filter((r) => DEMO_ORDER_LINES.includes(r.line_number));
+  for (const [filename, rows] of [['demo-lines.csv', mine(lines)], ['demo-points.csv', mine(points)]] as const) {
+    const preview = await uploadImport(me, { filename, buffer: Buffer.from(toCsv(rows)) }, { inline: true });
+    if (preview.counts.new + preview.counts.changed) await confirmImport(me, preview.id, { inline: true });
+  }
+}
+
+let first: DemoOrdersResult;
+beforeAll(async () => {
+  await importDemoLines();
+  first = await loadDemoOrders();
+}, 60_000);
+afterAll(() => closeQueues());
+
+describe('the demo plant\'s work orders', () => {
+  it('are all there, once each, in the state each is meant to be in', async () => {
+    const orders = await WorkOrder.findAll({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } } });
+    expect(orders).toHaveLength(DEMO_ORDERS.length);
+    for (const spec of DEMO_ORDERS) expect(orders.find((o) => o.scope === spec.scope)?.state, spec.scope).toBe(spec.state);
+    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'cancelled']));
+  });
+
+  it('carry their joints and an isolation plan, and the late and cancelled ones their reasons', async () => {
+    for (const spec of DEMO_ORDERS) {
+      const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
+      expect(await JointTask.count({ where: { workOrderId: order.id } }), spec.scope).toBe(spec.joints.reduce((n, j) => n + j.count, 0));
+      expect(await IsolationPlanEntry.count({ where: { workOrderId: order.id } }), spec.scope).toBeGreaterThanOrEqual(2);
+      expect(order.lateReason).toBe(spec.lateReason ?? null);
+      expect(order.cancelReason).toBe(spec.cancelReason ?? null);
+    }
+    expect(DEMO_ORDERS.some((o) => o.state === 'planned' && o.lateReason)).toBe(true);
+  });
+
+  it('show a new user an overlap: the sample-point draft shares 100-SA-001 and its valves with the coupling repair', async () => {
+    const [repair, samplePoint] = DEMO_ORDERS.filter((o) => o.line === '100-SA-001').map((o) => first.orders.find((x) => x.scope === o.scope)!);
+    const dto = await getOrder(samplePoint!.id);
+    expect(dto.overlaps).toContainEqual(expect.objectContaining({ orderId: repair!.id, on: 'line', what: '100-SA-001' }));
+    expect(dto.overlaps).toContainEqual(expect.objectContaining({ orderId: repair!.id, on: 'isolation-point' }));
+  });
+
+  it('have their windows in the days after they were loaded', async () => {
+    for (const spec of DEMO_ORDERS) {
+      const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
+      if (!spec.window) {
+        expect(order.windowStart).toBeNull();
+        continue;
+      }
+      const daysAhead = (order.windowStart!.getTime() - order.createdAt.getTime()) / 86_400_000;
+      expect(daysAhead, spec.scope).toBeGreaterThan(0);
+      expect(daysAhead, spec.scope).toBeLessThan(8);
+    }
+  });
+
+  it('are made once: a second load makes none and leaves them as they are', async () => {
+    const again = await loadDemoOrders();
+    expect(again.loaded).toBe(false);
+    expect(again.orders.map((o) => o.id).sort()).toEqual(first.orders.map((o) => o.id).sort());
+    expect(await WorkOrder.count({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } } })).toBe(DEMO_ORDERS.length);
+  });
+});
