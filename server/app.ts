@@ -21,6 +21,7 @@ import { openApiRoutes } from '@server/routes/openapi-routes';
 import { workOrderRoutes } from '@server/routes/work-order-routes';
 import { jointTaskRoutes } from '@server/routes/joint-task-routes';
 import { scheduleRoutes } from '@server/routes/schedule-routes';
+import { fitterRoutes } from '@server/routes/fitter-routes';
 
 const PgStore = connectPgSimple(session);
 
@@ -70,6 +71,7 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/work-orders', workOrderRoutes);
   app.use('/api/joint-tasks', jointTaskRoutes);
   app.use('/api/schedule', scheduleRoutes);
+  app.use('/api/fitters', fitterRoutes);
   app.use('/api', notFound);
 
   const dist = path.resolve(config.clientDist);

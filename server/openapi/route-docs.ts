@@ -11,7 +11,7 @@ import {
 } from '@shared/schemas/line-imports';
 import { lineDetailSchema, lineExportQuerySchema, lineListQuerySchema, lineListResponseSchema, lineNumberParamsSchema } from '@shared/schemas/lines';
 import { plantSettingsBodySchema, plantSettingsSchema } from '@shared/schemas/plant-settings';
-import { meSchema, personIdParamsSchema, personRolesBodySchema, personSchema } from '@shared/schemas/roles';
+import { fitterSchema, meSchema, personIdParamsSchema, personRolesBodySchema, personSchema } from '@shared/schemas/roles';
 import { scheduleQuerySchema, scheduleResponseSchema, windowPlanSchema } from '@shared/schemas/work-order-plan';
 import {
   workOrderCancelSchema, workOrderCreateSchema, workOrderIdParamsSchema, workOrderListQuerySchema, workOrderListResponseSchema, workOrderPlanSchema,
@@ -54,6 +54,7 @@ export const ROUTE_DOCS: RouteDoc[] = [
   // people
   { route: 'GET /api/me', tag: 'people', allow: 'signed-in', summary: 'The signed-in person and their roles', ok: { status: 200, description: 'The person', schema: meSchema } },
   { route: 'GET /api/people', tag: 'people', allow: 'people.manage', summary: 'Everyone who has signed in, with their roles', ok: { status: 200, description: 'People by name', schema: z.array(personSchema) } },
+  { route: 'GET /api/fitters', tag: 'people', allow: 'workOrders.plan', summary: 'Everyone who holds the fitter role, to give joint tasks to', ok: { status: 200, description: 'Fitters by name', schema: z.array(fitterSchema) } },
   { route: 'PUT /api/people/:id/roles', tag: 'people', allow: 'people.manage', summary: 'Set a person\'s roles (grants and withdrawals against the provider\'s)', params: personIdParamsSchema, body: personRolesBodySchema, ok: { status: 200, description: 'The person', schema: personSchema }, errors: { 409: 'An administrator cannot withdraw their own admin role.' } },
   // the line register
   { route: 'GET /api/lines', tag: 'lines', allow: 'lines.read', summary: 'A page of the line register, sorted and filtered', query: lineListQuerySchema, ok: { status: 200, description: 'The page, the total and the filter facets', schema: lineListResponseSchema } },

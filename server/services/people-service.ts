@@ -2,7 +2,7 @@ import { sequelize } from '@server/db/sequelize';
 import { Person } from '@server/db/models/person';
 import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
-import { ROLES, type Me, type Person as PersonDto, type Role } from '@shared/schemas/roles';
+import { ROLES, type Fitter, type Me, type Person as PersonDto, type Role } from '@shared/schemas/roles';
 
 /** What a person may do: the identity provider's roles, plus the admin's grants, less withdrawals. */
 export function effectiveRoles(p: Pick<Person, 'rolesFromIdp' | 'rolesGranted' | 'rolesWithdrawn'>): Role[] {
@@ -52,6 +52,12 @@ export async function recordSignIn(claims: SignInClaims): Promise<Me> {
     await recordAudit({ actorId: person.id, action: 'sign-in', entity: 'person', entityId: person.id, after: { roles: claims.roles } }, transaction);
     return toMe(person);
   });
+}
+
+/** Everyone who holds the fitter role now (the directory's, granted, less withdrawn), by name. */
+export async function listFitters(): Promise<Fitter[]> {
+  const people = await Person.findAll({ order: [['name', 'ASC']] });
+  return people.filter((p) => effectiveRoles(p).includes('fitter')).map((p) => ({ id: p.id, name: p.name }));
 }
 
 export async function listPeople(): Promise<PersonDto[]> {

@@ -28,5 +28,9 @@ export const personSchema = meSchema.extend({
 });
 export type Person = z.infer<typeof personSchema>;
 
+/** Someone who may be given joint tasks: a person holding the fitter role. */
+export const fitterSchema = z.object({ id: z.string().uuid(), name: z.string() });
+export type Fitter = z.infer<typeof fitterSchema>;
+
 export const personRolesBodySchema = z.object({ roles: z.array(roleSchema) });
 export const personIdParamsSchema = z.object({ id: z.string().uuid({ message: 'not a person id' }) });

@@ -108,3 +108,24 @@ describe('people and roles', () => {
     expect((await supervisor.b.get('/api/me')).body.roles).toEqual(['supervisor']);
   });
 });
+
+describe('the fitters a planner may give joints to', () => {
+  it('lists exactly the people who hold the fitter role now, by name, for a planner; an admin who only manages people may not', async () => {
+    const fitter = await signedIn('fitter');
+    await signedIn('fitter2');
+    const planner = await signedIn('planner');
+    const list = await planner.get('/api/fitters');
+    expect(list.status).toBe(200);
+    const names = (list.body as { name: string }[]).map((f) => f.name);
+    expect(names).toEqual(expect.arrayContaining(['Tomas Lind', 'Noor Haddad']));
+    expect(names).not.toContain('Ines Varga');
+    expect(names).toEqual([...names].sort((a, b) => a.localeCompare(b)));
+
+    // A fitter whose role is withdrawn drops off the list at once.
+    const me = (await fitter.get('/api/me')).body;
+    touched.add(me.id);
+    await Person.update({ rolesWithdrawn: ['fitter'] }, { where: { id: me.id } });
+    expect(((await planner.get('/api/fitters')).body as { name: string }[]).map((f) => f.name)).not.toContain('Tomas Lind');
+    expect((await (await signedIn('admin')).get('/api/fitters')).status).toBe(403);
+  });
+});

@@ -31,6 +31,7 @@ const NO_ID = randomUUID();
 
 const TABLE: Row[] = [
   { route: 'GET /api/health', allow: 'public' },
+  { route: 'GET /api/openapi.json', allow: 'public' },
   { route: 'GET /auth/login', allow: 'public' },
   { route: 'GET /auth/callback', allow: 'public' }, // without a sign-in under way it answers 400
   { route: 'POST /auth/logout', allow: 'public', endsSession: true }, // signing out without a session is harmless
@@ -60,6 +61,7 @@ const TABLE: Row[] = [
   { route: 'DELETE /api/joint-tasks/:id', allow: 'workOrders.plan', sample: `/api/joint-tasks/${NO_ID}` }, // no such task: 404
   { route: 'PUT /api/joint-tasks/:id/fitter', allow: 'workOrders.plan', sample: `/api/joint-tasks/${NO_ID}/fitter`, body: {} },
   { route: 'GET /api/schedule', allow: 'workOrders.read' }, // no range: 400
+  { route: 'GET /api/fitters', allow: 'workOrders.plan' },
 ];
 
 /** The roles a row lets through, read from the permission table. */

@@ -5,6 +5,7 @@ import type { IsolationPlanBody, IsolationPlanResponse } from '@shared/schemas/i
 import type { JointTaskDto, JointTasksAdd } from '@shared/schemas/joint-tasks';
 import type { ScheduleResponse, WindowPlanDto } from '@shared/schemas/work-order-plan';
 import type { WorkOrderFilters } from '@/features/work-orders/filters';
+import type { Fitter } from '@shared/schemas/roles';
 
 /** Every work-order query, keys general → specific; a write invalidates `all()` (lists, orders, plans, the schedule). */
 export const workOrderQueries = {
@@ -23,6 +24,8 @@ export const workOrderQueries = {
     queryOptions({ queryKey: [...workOrderQueries.details(), id, 'window-plan'], queryFn: () => api.get<WindowPlanDto>(`/api/work-orders/${id}/window-plan`) }),
   isolationPlan: (id: string) =>
     queryOptions({ queryKey: [...workOrderQueries.details(), id, 'isolation-plan'], queryFn: () => api.get<IsolationPlanResponse>(`/api/work-orders/${id}/isolation-plan`) }),
+  /** Who may be given joint tasks (people holding the fitter role). */
+  fitters: () => queryOptions({ queryKey: [...workOrderQueries.all(), 'fitters'], queryFn: () => api.get<Fitter[]>('/api/fitters'), staleTime: 5 * 60_000 }),
   schedule: (q: { from: string; to: string; area?: string }) =>
     queryOptions({
       queryKey: [...workOrderQueries.all(), 'schedule', q],
@@ -44,5 +47,7 @@ export const usePlanOrder = (id: string) => useWrite((body: { lateReason?: strin
 export const useCancelOrder = (id: string) => useWrite((body: { reason: string }) => api.post<WorkOrderDto>(`/api/work-orders/${id}/cancellation`, body));
 export const useAddJoints = (id: string) => useWrite((body: JointTasksAdd) => api.post<JointTaskDto[]>(`/api/work-orders/${id}/joint-tasks`, body));
 export const useRemoveJoint = () => useWrite((taskId: string) => api.delete<null>(`/api/joint-tasks/${taskId}`));
+export const useSetFitter = () =>
+  useWrite(({ taskId, personId }: { taskId: string; personId: string | null }) => api.put<JointTaskDto>(`/api/joint-tasks/${taskId}/fitter`, { personId }));
 export const useSetIsolationPlan = (id: string) =>
   useWrite((body: IsolationPlanBody) => api.put<IsolationPlanResponse>(`/api/work-orders/${id}/isolation-plan`, body));

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
 import { NOMINAL_SIZES, parseNominalSize } from '@shared/trade';
 import { FITTING_KINDS, FITTING_KIND_LABELS, REDUCING_FITTINGS, type FittingKind, type JointTaskDto } from '@shared/schemas/joint-tasks';
 import type { LineDto } from '@shared/schemas/lines';
@@ -8,10 +9,12 @@ import { Card } from '@/components/ui/card';
 import { Field, Input, Select } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
 import { formatSize } from '@/lib/format';
-import { useAddJoints, useRemoveJoint } from '@/features/work-orders/api';
+import { useAddJoints, useRemoveJoint, useSetFitter, workOrderQueries } from '@/features/work-orders/api';
 
 export function JointTasksCard({ orderId, lines, tasks, mayEdit }: { orderId: string; lines: LineDto[]; tasks: JointTaskDto[]; mayEdit: boolean }) {
   const remove = useRemoveJoint();
+  const assign = useSetFitter();
+  const fitters = useQuery({ ...workOrderQueries.fitters(), enabled: mayEdit });
   return (
     <Card title={`Joint tasks (${tasks.length})`}>
       {tasks.length === 0 ? (
@@ -36,7 +39,23 @@ export function JointTasksCard({ orderId, lines, tasks, mayEdit }: { orderId: st
                   <td className="py-1 pr-3">{j.lineNumber}</td>
                   <td className="py-1 pr-3">{FITTING_KIND_LABELS[j.fittingKind]}</td>
                   <td className="py-1 pr-3 text-right tabular-nums">{formatSize(j.jointSize)}{j.reducingSize && <span className="text-ink-soft"> (on {formatSize(j.nominalSize)})</span>}</td>
-                  <td className="py-1 pr-3">{j.fitter?.name ?? <span className="text-ink-faint">not assigned</span>}</td>
+                  <td className="py-1 pr-3">
+                    {mayEdit && fitters.data ? (
+                      <Select
+                        aria-label={`Fitter for joint ${j.label}`}
+                        value={j.fitter?.id ?? ''}
+                        disabled={assign.isPending}
+                        onChange={(e) => assign.mutate({ taskId: j.id, personId: e.target.value || null })}
+                      >
+                        <option value="">not assigned</option>
+                        {fitters.data.map((f) => (
+                          <option key={f.id} value={f.id}>{f.name}</option>
+                        ))}
+                      </Select>
+                    ) : (
+                      j.fitter?.name ?? <span className="text-ink-faint">not assigned</span>
+                    )}
+                  </td>
                   {mayEdit && (
                     <td className="py-1 text-right">
                       <Button variant="ghost" aria-label={`Remove joint ${j.label}`} disabled={remove.isPending} onClick={() => remove.mutate(j.id)}>Remove</Button>
@@ -49,10 +68,8 @@ export function JointTasksCard({ orderId, lines, tasks, mayEdit }: { orderId: st
         </div>
       )}
       {remove.error && <Notice tone="refusal" title="The joint was not removed">{remove.error.message}</Notice>}
+      {assign.error && <Notice tone="refusal" title="The fitter was not assigned">{assign.error.message}</Notice>}
       {mayEdit && lines.length > 0 && <AddJoints orderId={orderId} lines={lines} />}
-      <p className="mt-3 text-xs text-ink-faint">
-        Fitters are assigned per joint by the server from people holding the fitter role; this app has no list of fitters for planners yet, so assignment is not offered on this page.
-      </p>
     </Card>
   );
 }
