@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Person } from '@server/db/models/person';
 import { APP, signedIn } from '../helpers/browserless';
 import { DEMO_ACCOUNTS } from '../../scripts/demo-accounts';
-import { useBrowserApp } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/browser-app';
 
 let supervisorId: string;
 

@@ -2,7 +2,8 @@ import { afterEach, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { PlantSetting } from '@server/db/models/plant-setting';
 import { APP } from '../helpers/browserless';
-import { signInInBrowser, useBrowserApp, VIEWPORTS } from '../helpers/chromium';
+import { signInInBrowser, VIEWPORTS } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/browser-app';
 
 let page: Page;
 const plantDefaults = () => PlantSetting.update({ cureScheduleId: 'A', testCap: 'rating', updatedById: null }, { where: { id: 1 } });

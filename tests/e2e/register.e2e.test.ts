@@ -5,7 +5,7 @@ import { Op } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
 import { Line } from '@server/db/models/line';
 import { APP } from '../helpers/browserless';
-import { useBrowserApp } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/browser-app';
 import { LINE_HEADER } from '../helpers/import-csv';
 import { makeLines } from '../helpers/line-rows';
 

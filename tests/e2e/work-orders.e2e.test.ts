@@ -6,7 +6,7 @@ import { JointTask } from '@server/db/models/joint-task';
 import { WorkOrder } from '@server/db/models/work-order';
 import { duration } from '@/lib/format';
 import { APP } from '../helpers/browserless';
-import { useBrowserApp } from '../helpers/chromium';
+import { useBrowserApp } from '../helpers/browser-app';
 import { makeIsolationPoint, makeLines, uniquePrefix } from '../helpers/line-rows';
 import { plannableOrder, plantForWorkOrders } from '../helpers/work-orders';
 
