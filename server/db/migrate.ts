@@ -6,12 +6,14 @@ import * as plantSettings from '@server/db/migrations/20261202000300-plant-setti
 import * as lineImportPreviewedAt from '@server/db/migrations/20261203000100-line-import-previewed-at';
 import * as dropLineSearchTrigram from '@server/db/migrations/20261203000200-drop-line-search-trigram';
 import * as plantSettingsVersion from '@server/db/migrations/20261204000100-plant-settings-version';
+import * as lineImportPreviewSpeed from '@server/db/migrations/20261205000100-line-import-preview-speed';
+import * as lineImportCancellation from '@server/db/migrations/20261205000200-line-import-cancellation';
 import * as workOrders from '@server/db/migrations/20261206000100-work-orders';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
-  workOrders,
+  lineImportPreviewSpeed, lineImportCancellation, workOrders,
 ];
 
 export function migrator() {

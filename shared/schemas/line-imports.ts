@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 export const IMPORT_KINDS = ['lines', 'isolation-points'] as const;
 export type ImportKind = (typeof IMPORT_KINDS)[number];
-export const IMPORT_STATUSES = ['previewing', 'previewed', 'applying', 'applied', 'failed'] as const;
+export const IMPORT_STATUSES = ['previewing', 'previewed', 'applying', 'applied', 'failed', 'cancelled'] as const;
 export type ImportStatus = (typeof IMPORT_STATUSES)[number];
 export const ROW_OUTCOMES = ['new', 'changed', 'unchanged', 'rejected'] as const;
 export type RowOutcome = (typeof ROW_OUTCOMES)[number];
@@ -27,8 +27,11 @@ export const lineImportSchema = z.object({
   counts: z.object({ new: z.number(), changed: z.number(), unchanged: z.number(), rejected: z.number() }),
   progress: z.number(),
   error: z.string().nullable(),
+  /** The name of the person who uploaded the file. */
+  uploadedBy: z.string(),
   createdAt: z.string(),
   appliedAt: z.string().nullable(),
+  cancelledAt: z.string().nullable(),
 });
 export type LineImportDto = z.infer<typeof lineImportSchema>;
 
@@ -38,6 +41,15 @@ export const importRowsQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(500).default(100),
   outcome: z.enum(ROW_OUTCOMES).optional(),
 });
+/** Past imports, newest first, a page at a time. */
+export const importListQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+export type ImportListQuery = z.infer<typeof importListQuerySchema>;
+export const importListResponseSchema = z.object({ rows: z.array(lineImportSchema), total: z.number() });
+export type ImportListResponse = z.infer<typeof importListResponseSchema>;
+
 export const importRowsResponseSchema = z.object({ rows: z.array(importRowSchema), total: z.number() });
 export type ImportRowsResponse = z.infer<typeof importRowsResponseSchema>;
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
-  barToPsi, cToF, fToC, inToMm, kpaToPsi, mmToIn, parseLength, parsePressure, parseTemperature, psiToBar, psiToKpa,
+  ABSOLUTE_ZERO_F, barToPsi, BELOW_ABSOLUTE_ZERO, cToF, fToC, inToMm, isBelowAbsoluteZero, kpaToPsi, mmToIn, parseLength, parsePressure,
+  parseTemperature, psiToBar, psiToKpa,
 } from './units';
 
 describe('unit conversions', () => {
@@ -54,5 +55,17 @@ describe('parsing a value with its unit', () => {
     expect(parseTemperature('-40C')).toMatchObject({ ok: true, temperatureF: -40, unit: '°C' });
     expect(parseTemperature('21 °C')).toMatchObject({ ok: true, unit: '°C' });
     expect(parseTemperature('-300 C').ok).toBe(false);
+  });
+});
+
+describe('absolute zero, one rule for the importer and the calculator', () => {
+  it('−459.67 °F and −273.15 °C are the coldest temperatures taken; a hair colder is refused, in °F or °C', () => {
+    expect(isBelowAbsoluteZero(ABSOLUTE_ZERO_F)).toBe(false);
+    expect(isBelowAbsoluteZero(-459.68)).toBe(true);
+    expect(isBelowAbsoluteZero(cToF(-273.15))).toBe(false);
+    expect(parseTemperature('-459.67 F')).toMatchObject({ ok: true });
+    expect(parseTemperature('-273.15 C')).toMatchObject({ ok: true });
+    expect(parseTemperature('-459.7 F')).toEqual({ ok: false, reason: BELOW_ABSOLUTE_ZERO });
+    expect(parseTemperature('-273.2', 'C')).toEqual({ ok: false, reason: BELOW_ABSOLUTE_ZERO });
   });
 });

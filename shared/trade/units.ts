@@ -78,8 +78,21 @@ export function parseLength(input: string | number, defaultUnit?: 'in' | 'mm' | 
   return r.ok && r.inches < 0 ? refuse('Length must be 0 or more.') : r;
 }
 
+/** Absolute zero, °F (−273.15 °C): no temperature is colder. */
+export const ABSOLUTE_ZERO_F = -459.67;
+export const BELOW_ABSOLUTE_ZERO = 'That is below absolute zero (−459.67 °F, −273.15 °C).';
+
+/**
+ * The one rule both the importer (parseTemperature) and the calculator's schema (joint-spec.ts)
+ * apply to a temperature in °F. A hair of rounding is allowed, so −273.15 °C (converted) is not
+ * refused as colder than itself.
+ */
+export function isBelowAbsoluteZero(temperatureF: number): boolean {
+  return temperatureF < ABSOLUTE_ZERO_F - 1e-9;
+}
+
 /** "70 °F", "21 C", "-5°C" → °F. */
 export function parseTemperature(input: string | number, defaultUnit?: 'F' | 'C'): Parsed<'temperatureF'> | Refusal {
   const r = parseWith(input, TEMPERATURE, 'temperatureF', 'temperature', defaultUnit);
-  return r.ok && r.temperatureF < -459.67 ? refuse('That is below absolute zero.') : r;
+  return r.ok && isBelowAbsoluteZero(r.temperatureF) ? refuse(BELOW_ABSOLUTE_ZERO) : r;
 }

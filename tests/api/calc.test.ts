@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { PlantSetting } from '@server/db/models/plant-setting';
-import { jointPicture, type JointSpecInput } from '@shared/trade';
+import { jointPicture, parseTemperature, type JointSpecInput } from '@shared/trade';
 import { DEFAULT_VALUES, type CalculatorValues } from '@/features/calculator/form';
 import { differingSections, previewJoint } from '@/features/calculator/preview';
 import { useTestApp } from '../helpers/app';
@@ -11,6 +11,11 @@ const plain: JointSpecInput = {
   material: 'PVC', schedule: 80, nominalSize: '2', designPressurePsi: 100, designTemperatureF: 73,
   cureTemperatureF: 70, relativeHumidity: 40, testMedium: 'water', pressureService: true,
 };
+/** What the importer says of the same temperature (shared/trade/units.ts): the one rule both follow. */
+const BELOW_ABSOLUTE_ZERO = (() => {
+  const r = parseTemperature(-500, 'F');
+  return r.ok ? 'accepted' : r.reason;
+})();
 const PLANT_A = { cureScheduleId: 'A', testCap: 'rating' } as const;
 /** What crosses the wire: the engine's picture as JSON. */
 const expected = (spec: JointSpecInput, plant: { cureScheduleId: string; testCap: 'rating' | 'one-and-a-half-rating' } = PLANT_A) =>
@@ -62,6 +67,13 @@ describe('POST /api/calc/joint answers with the same picture as jointPicture', (
     expect(res.body.error).toMatchObject({ code: 'bad_request', message: expect.any(String) });
     expect(Object.keys(res.body.error.details).sort()).toEqual(['designPressurePsi', 'nominalSize', 'schedule']);
     expect(res.body.error.details.nominalSize).toEqual(['Not a listed nominal pipe size']);
+  });
+
+  it('a temperature below absolute zero is refused (400) with the reason the importer gives, field by field', async () => {
+    const res = await users.fitter.post('/api/calc/joint', { ...plain, cureTemperatureF: -500, testTemperatureF: -459.7 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details).toEqual({ cureTemperatureF: [BELOW_ABSOLUTE_ZERO], testTemperatureF: [BELOW_ABSOLUTE_ZERO] });
+    expect((await users.fitter.post('/api/calc/joint', { ...plain, cureTemperatureF: -459.67 })).status).toBe(200);
   });
 });
 

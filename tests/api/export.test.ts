@@ -8,7 +8,7 @@ import { makeLines, uniquePrefix } from '../helpers/line-rows';
 // The columns the line importer reads, written out here so a rename on either side shows.
 const IMPORT_COLUMNS = ['line_number', 'area', 'service', 'material', 'schedule', 'nominal_size', 'design_pressure_psi', 'design_temperature_f', 'drawing', 'notes'];
 
-const users = useTestApp({ signIn: ['fitter'] });
+const users = useTestApp({ signIn: ['fitter', 'planner'] });
 
 /** A list filter of several values goes as one repeated parameter per value (`?area=A&area=B`), as the client sends it. */
 const toQuery = (query: Record<string, string | string[]>) =>
@@ -121,5 +121,38 @@ describe('exporting the line register as CSV', () => {
     expect(res.status).toBe(400);
     expect(res.headers.get('content-disposition')).toBeNull();
     expect(res.body.error).toMatchObject({ code: 'bad_request', details: { 'material.0': [expect.stringContaining('PVC')] } });
+  });
+});
+
+describe('an export re-imports exactly', () => {
+  /** The register's CSV export of lines whose numbers hold `p`, uploaded again as an import by a planner. */
+  async function reimport(p: string) {
+    const text = await (await users.planner.raw(`/api/lines/export.csv?search=${encodeURIComponent(p)}`)).text();
+    const up = await users.planner.upload('/api/line-imports', `${p}-export.csv`, text);
+    expect(up.status).toBe(201);
+    const rows = (await users.planner.get(`/api/line-imports/${up.body.id}/rows?pageSize=500`)).body.rows as any[];
+    return { text, imp: up.body, rows };
+  }
+
+  it('cells beginning with =, +, -, @, a tab, CR or LF come back unchanged: the apostrophe the export adds comes off again', async () => {
+    const p = uniquePrefix('ROUND');
+    const leads = ['=', '+', '-', '@', '\t', '\r', '\n'];
+    await makeLines(p, leads.map((c, i) => ({
+      area: `${c}${p} area ${i}`, service: `${c}SUM(A1:A9)`, drawingRef: `${c}P&ID-${i}`, notes: `${c}1+1\nsecond line "quoted", too`,
+    })));
+    const { text, imp, rows } = await reimport(p);
+    expect(text).toContain(`"'=${p} area 0"`); // escaped on the way out …
+    expect(imp).toMatchObject({ status: 'previewed', totalRows: leads.length, counts: { new: 0, changed: 0, unchanged: leads.length, rejected: 0 } });
+    expect(rows.every((r) => r.outcome === 'unchanged')).toBe(true); // … and exactly as stored on the way back
+  });
+
+  it('a line number beginning with a formula character comes back rejected with the reason, never as a new line', async () => {
+    const p = uniquePrefix('FLINE');
+    await makeLines(p, [{ lineNumber: `=${p}-1` }, { lineNumber: `${p}-2` }]);
+    const { imp, rows } = await reimport(p);
+    expect(imp.counts).toEqual({ new: 0, changed: 0, unchanged: 1, rejected: 1 });
+    const rejected = rows.find((r) => r.outcome === 'rejected');
+    expect(rejected.data.lineNumber).toBe(`=${p}-1`);
+    expect(rejected.problems).toEqual([{ column: 'line_number', message: expect.stringMatching(/begins with "=", which a spreadsheet takes for the start of a formula/) }]);
   });
 });

@@ -7,14 +7,15 @@ import { Line } from '@server/db/models/line';
 import { LineImport, LineImportRow } from '@server/db/models/line-import';
 import { importQueue } from '@server/queues/line-imports';
 import { mailJobId, mailQueue } from '@server/queues/mail';
-import { lineImportSchema } from '@shared/schemas/line-imports';
+import { importListResponseSchema, lineImportSchema } from '@shared/schemas/line-imports';
+import { processImport } from '../../worker/processors/line-import';
 import { useTestApp } from '../helpers/app';
 import { signedIn } from '../helpers/browserless';
-import { POINT_HEADER, importRow, lineRow, testPrefix, toCsv, type CsvRow } from '../helpers/import-csv';
+import { LINE_HEADER, POINT_HEADER, importRow, lineRow, testPrefix, toCsv, type CsvRow } from '../helpers/import-csv';
 
 const users = useTestApp({ signIn: ['planner'] });
 
-const upload = (name: string, text: string, as = users.planner) => as.upload('/api/line-imports', name, text);
+const upload = (name: string, text: string | Buffer, as = users.planner) => as.upload('/api/line-imports', name, text);
 const rowsOf = async (id: string, query = '') => (await users.planner.get(`/api/line-imports/${id}/rows?pageSize=500${query}`)).body.rows as any[];
 const linesNamed = (p: string) => Line.findAll({ where: { lineNumber: { [Op.startsWith]: p } }, order: [['lineNumber', 'ASC']] });
 
@@ -302,5 +303,177 @@ describe('a file within the inline limit', () => {
     expect(await importQueue().getJob(`preview-${up.body.id}`)).toBeUndefined();
     expect(await importQueue().getJob(`apply-${up.body.id}`)).toBeUndefined();
     expect(await mailQueue().getJob(mailJobId({ purpose: 'line-import-applied', recordId: up.body.id }))).toBeUndefined();
+  });
+});
+
+describe('reading the file as a spreadsheet saved it', () => {
+  it('a Windows-1252 file keeps its curly quotes, dashes, ½ and €; a byte that stands for nothing rejects its row', async () => {
+    const p = testPrefix('CP1252');
+    const text = toCsv([
+      lineRow(`${p}-1`, { service: 'Brine \x96 20\x80/m\xb3', notes: '\x93Keep\x94 \xbd" drain \x85 don\x92t' }),
+      lineRow(`${p}-2`, { notes: 'odd \x81 byte' }),
+    ]);
+    const up = await upload(`${p}.csv`, Buffer.from(text, 'latin1'));
+    expect(up.body.counts).toMatchObject({ new: 1, rejected: 1 });
+    const [good, odd] = await rowsOf(up.body.id);
+    expect(good.data).toMatchObject({ service: 'Brine – 20€/m³', notes: '“Keep” ½" drain … don’t' });
+    expect(odd.problems).toEqual([{ column: 'notes', message: expect.stringMatching(/could not be read.*save the file as "CSV UTF-8"/) }]);
+  });
+
+  it('a cell with a quote that is never closed rejects its own row, naming it, and the rows below are previewed as usual', async () => {
+    const p = testPrefix('QUOTE');
+    const text = `${LINE_HEADER.join(',')}\n${toCsv([lineRow(`${p}-1`)]).split('\n')[1]}\n${p}-2,A,S,PVC,80,2,100,70,D,"5 in. reducer\n` +
+      toCsv([lineRow(`${p}-3`), lineRow(`${p}-4`)]).split('\n').slice(1).join('\n');
+    const up = await upload(`${p}.csv`, text);
+    expect(up.body).toMatchObject({ status: 'previewed', totalRows: 4, counts: { new: 3, rejected: 1 } });
+    const rows = await rowsOf(up.body.id);
+    expect(rows.map((r) => [r.rowNumber, r.key, r.outcome])).toEqual([[2, `${p}-1`, 'new'], [3, `${p}-2`, 'rejected'], [4, `${p}-3`, 'new'], [5, `${p}-4`, 'new']]);
+    expect(rows[1].problems).toEqual([{ column: 'notes', message: expect.stringMatching(/^A quote \(".*never closed on its row/) }]);
+  });
+
+  it('a CRLF header with LF rows, and a file with CR alone between rows, each preview every row', async () => {
+    const p = testPrefix('EOL');
+    const [head, ...body] = toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`), lineRow(`${p}-3`)]).trimEnd().split('\n');
+    const mixed = await upload(`${p}-mixed.csv`, `${head}\r\n${body.join('\n')}\n`);
+    expect(mixed.body).toMatchObject({ totalRows: 3, counts: { new: 3, rejected: 0 } });
+    const crOnly = await upload(`${p}-cr.csv`, `${head}\r${body.join('\r')}\r`);
+    expect((await rowsOf(crOnly.body.id)).map((r) => [r.rowNumber, r.key, r.outcome])).toEqual([[2, `${p}-1`, 'new'], [3, `${p}-2`, 'new'], [4, `${p}-3`, 'new']]);
+  });
+
+  it('a CR-only file over the inline limit goes to the worker like any other large file', async () => {
+    const p = testPrefix('CRBIG');
+    const text = toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))).replace(/\n/g, '\r');
+    const res = await upload(`${p}.csv`, text);
+    expect(res.body).toMatchObject({ status: 'previewing', totalRows: 0 });
+    const job = await importQueue().getJob(`preview-${res.body.id}`);
+    expect(job?.data).toEqual({ importId: res.body.id, step: 'preview' });
+    await job?.remove();
+  });
+
+  it('blank lines before the header and before the first row are skipped; rows keep the numbers the spreadsheet shows', async () => {
+    const p = testPrefix('BLANK');
+    const [head, one, two] = toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`, { material: 'clay' })]).split('\n');
+    const up = await upload(`${p}.csv`, `\n\n${head}\n\n,,,,,,,,,\n${one}\n\n${two}\n`);
+    expect(up.status).toBe(201);
+    expect((await rowsOf(up.body.id)).map((r) => [r.rowNumber, r.key, r.outcome])).toEqual([[6, `${p}-1`, 'new'], [8, `${p}-2`, 'rejected']]);
+  });
+});
+
+describe('an import with nothing to write', () => {
+  it('every row rejected: confirming is refused (409 nothing_to_write), nothing is applied, and another preview stays good', async () => {
+    const p = testPrefix('NONE');
+    const other = await upload(`${p}-other.csv`, toCsv([lineRow(`${p}-9`)]));
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`, { material: 'clay' }), lineRow(`${p}-2`, { material: 'glass' })]));
+    const res = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(res.status).toBe(409);
+    expect(res.body.error).toEqual({ code: 'nothing_to_write', message: 'There is nothing to write: all 2 rows of the file are rejected. The register is left as it is; correct the file and upload it again if something should change.' });
+    expect(await importRow(up.body.id)).toMatchObject({ status: 'previewed', appliedAt: null, confirmedById: null });
+    expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(0);
+    expect((await users.planner.post(`/api/line-imports/${other.body.id}/confirm`)).status).toBe(200);
+  });
+
+  it('every row unchanged, or some unchanged and the rest rejected: refused the same way, in so many words', async () => {
+    const p = testPrefix('SAME');
+    await registerHas(p, [lineRow(`${p}-1`)]);
+    const same = await upload(`${p}-same.csv`, toCsv([lineRow(`${p}-1`)]));
+    const res = await users.planner.post(`/api/line-imports/${same.body.id}/confirm`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe("There is nothing to write: the file's only row already matches the register. The register is left as it is; correct the file and upload it again if something should change.");
+    const mixed = await upload(`${p}-mixed.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`, { material: 'clay' }), lineRow(`${p}-3`, { material: 'clay' })]));
+    const refused = await users.planner.post(`/api/line-imports/${mixed.body.id}/confirm`);
+    expect(refused.body.error).toEqual({ code: 'nothing_to_write', message: expect.stringMatching(/^There is nothing to write: of the file's 3 rows, 2 are rejected and 1 already matches the register\./) });
+  });
+});
+
+describe('past imports', () => {
+  it('lists imports newest first, a page at a time, each with who uploaded it', async () => {
+    const p = testPrefix('LIST');
+    const first = await upload(`${p}-1.csv`, toCsv([lineRow(`${p}-1`)]));
+    const second = await upload(`${p}-2.csv`, toCsv([lineRow(`${p}-2`)]));
+    const page = await users.planner.get('/api/line-imports?page=1&pageSize=2');
+    expect(page.status).toBe(200);
+    expect(importListResponseSchema.strict().parse(page.body).rows.map((r) => r.id)).toEqual([second.body.id, first.body.id]);
+    expect(page.body.rows[0]).toMatchObject({ filename: `${p}-2.csv`, status: 'previewed', uploadedBy: 'Ines Varga', cancelledAt: null });
+    expect(page.body.total).toBe(await LineImport.count());
+    const next = await users.planner.get('/api/line-imports?page=2&pageSize=1');
+    expect(next.body.rows.map((r: any) => r.id)).toEqual([first.body.id]);
+    const dflt = await users.planner.get('/api/line-imports');
+    expect(dflt.body.rows.length).toBe(Math.min(20, dflt.body.total));
+    expect((await users.planner.get('/api/line-imports?pageSize=101')).status).toBe(400);
+    expect((await users.planner.get('/api/line-imports?page=0')).status).toBe(400);
+  });
+});
+
+describe('cancelling an import', () => {
+  const cancel = (id: string) => users.planner.post(`/api/line-imports/${id}/cancellation`, {});
+
+  it('a previewed import: 200 with status cancelled, its preview rows gone, nothing written, and an audit entry names who', async () => {
+    const p = testPrefix('CANCEL');
+    const up = await upload(`${p}.csv`, toCsv([lineRow(`${p}-1`), lineRow(`${p}-2`)]));
+    const res = await cancel(up.body.id);
+    expect(res.status).toBe(200);
+    expect(lineImportSchema.parse(res.body)).toMatchObject({ id: up.body.id, status: 'cancelled', appliedAt: null, uploadedBy: 'Ines Varga' });
+    expect(Date.parse(res.body.cancelledAt)).toBeGreaterThan(Date.parse(res.body.createdAt) - 1);
+    expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(0);
+    expect(await linesNamed(p)).toEqual([]);
+    const me = (await users.planner.get('/api/me')).body;
+    const audit = await AuditEntry.findAll({ where: { action: 'line-import-cancelled', entityId: up.body.id } });
+    expect(audit.map((a) => [a.actorId, a.before, a.after])).toEqual([[me.id, { status: 'previewed' }, { status: 'cancelled', kind: 'lines', filename: `${p}.csv` }]]);
+
+    const again = await cancel(up.body.id);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toBe('This import has already been cancelled.');
+    const confirm = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(confirm.status).toBe(409);
+    expect(confirm.body.error.message).toMatch(/^This import was cancelled/);
+  });
+
+  it('an applied or a failed import cannot be cancelled (409), and stays as it was', async () => {
+    const p = testPrefix('NOCANCEL');
+    const applied = await registerHas(p, [lineRow(`${p}-1`)]);
+    const res = await cancel(applied.id);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe('This import has already been written to the register, so it can no longer be cancelled.');
+    expect((await importRow(applied.id))?.status).toBe('applied');
+
+    const up = await upload(`${p}-2.csv`, toCsv([lineRow(`${p}-2`)]));
+    await LineImport.update({ status: 'failed', error: 'The import stopped.' }, { where: { id: up.body.id } });
+    const failed = await cancel(up.body.id);
+    expect(failed.status).toBe(409);
+    expect(failed.body.error.message).toBe('This import failed, so nothing of it was written and there is nothing to cancel.');
+    expect(await AuditEntry.count({ where: { action: 'line-import-cancelled', entityId: [applied.id, up.body.id] } })).toBe(0);
+    expect((await users.planner.post('/api/line-imports/00000000-0000-4000-8000-000000000000/cancellation', {})).status).toBe(404);
+  });
+
+  it('a large import still waiting for its preview: cancelled, and the worker\'s preview then writes nothing', async () => {
+    const p = testPrefix('CANPRE');
+    const up = await upload(`${p}.csv`, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))));
+    expect(up.body.status).toBe('previewing');
+    expect((await cancel(up.body.id)).body.status).toBe('cancelled');
+    await processImport({ data: { importId: up.body.id, step: 'preview' } }); // what the worker does with the job
+    expect(await importRow(up.body.id)).toMatchObject({ status: 'cancelled', totalRows: 0 });
+    expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(0);
+    await importQueue().remove(`preview-${up.body.id}`);
+  });
+
+  it('a large import confirmed and waiting for the worker: cancelled, and the worker\'s apply then writes nothing and mails nobody', async () => {
+    const p = testPrefix('CANAPP');
+    const up = await upload(`${p}.csv`, toCsv(Array.from({ length: 60 }, (_, i) => lineRow(`${p}-${i}`))));
+    await importQueue().remove(`preview-${up.body.id}`);
+    await processImport({ data: { importId: up.body.id, step: 'preview' } });
+    const confirmed = await users.planner.post(`/api/line-imports/${up.body.id}/confirm`);
+    expect(confirmed.body.status).toBe('applying');
+    const res = await cancel(up.body.id);
+    expect(res.body).toMatchObject({ status: 'cancelled', appliedAt: null });
+    expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(0);
+    await processImport({ data: { importId: up.body.id, step: 'apply' } });
+    expect((await importRow(up.body.id))?.status).toBe('cancelled');
+    expect(await linesNamed(p)).toEqual([]);
+    expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(0);
+    expect(await mailQueue().getJob(mailJobId({ purpose: 'line-import-applied', recordId: up.body.id }))).toBeUndefined();
+    expect(await mailQueue().getJob(mailJobId({ purpose: 'line-import-failed', recordId: up.body.id }))).toBeUndefined();
+    await importQueue().remove(`apply-${up.body.id}`);
+    // The kind is not left busy: another file can be confirmed.
+    expect((await registerHas(`${p}-X`, [lineRow(`${p}-X-1`)])).status).toBe('applied');
   });
 });

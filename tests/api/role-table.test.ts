@@ -45,6 +45,8 @@ const TABLE: Row[] = [
   { route: 'GET /api/line-imports/:id', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}` },
   { route: 'GET /api/line-imports/:id/rows', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}/rows` },
   { route: 'POST /api/line-imports/:id/confirm', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}/confirm`, body: {} },
+  { route: 'GET /api/line-imports', allow: 'lines.import' },
+  { route: 'POST /api/line-imports/:id/cancellation', allow: 'lines.import', sample: `/api/line-imports/${NO_ID}/cancellation`, body: {} }, // no such import: 404
   { route: 'POST /api/calc/joint', allow: 'calc.use', body: {} }, // an empty joint: 400
   { route: 'GET /api/plant-settings', allow: 'plantSettings.read' },
   { route: 'PUT /api/plant-settings', allow: 'plantSettings.edit', body: { testCap: 'not-a-cap' } }, // 400, nothing changes

@@ -5,6 +5,7 @@ import { AuditEntry } from '@server/db/models/audit-entry';
 import { Line } from '@server/db/models/line';
 import { LineImportRow } from '@server/db/models/line-import';
 import { closeQueues } from '@server/queues/connection';
+import { importJobState } from '@server/queues/line-imports';
 import { startWorkers } from '../../worker/workers';
 import { processImport } from '../../worker/processors/line-import';
 import { useTestApp } from '../helpers/app';
@@ -116,5 +117,60 @@ describe('a large import goes through the worker', () => {
     expect(await Line.count({ where: { lineNumber: { [Op.startsWith]: p } } })).toBe(0);
     const [mail] = await waitFor('the mail', () => mailAbout(file), (m) => m.length > 0);
     expect(mail!.subject).toBe(`Line register import failed: ${file}`);
+  });
+});
+
+describe('cancelling while the worker runs the import', () => {
+  const cancel = (id: string) => users.planner.post(`/api/line-imports/${id}/cancellation`, {});
+  const jobDone = (importId: string, step: 'preview' | 'apply') =>
+    waitFor(`the ${step} job`, () => importJobState({ importId, step }), (s) => s === 'completed' || s === 'failed', 60_000);
+
+  it('cancelled part-way through its preview, the worker stops between chunks and writes no preview row', async () => {
+    const p = testPrefix('WCANPRE');
+    // A row of the first chunk holds its COPY for a moment, so the cancel lands while the preview runs.
+    const fn = `lw_test_slow_${p.replace(/\W/g, '_').toLowerCase()}`;
+    await sequelize.query(`create function ${fn}() returns trigger language plpgsql as $$ begin
+      if new.key = '${p}-00500' then perform pg_sleep(1.5); end if; return new; end $$`);
+    await sequelize.query(`create trigger ${fn} before insert on line_import_rows for each row execute function ${fn}()`);
+    try {
+      const rows = Array.from({ length: 25_000 }, (_, i) => lineRow(`${p}-${String(i).padStart(5, '0')}`));
+      const up = await users.planner.upload('/api/line-imports', `${p}.csv`, toCsv(rows));
+      await waitFor('progress part-way', importOf(up.body.id), (b) => b.status !== 'previewing' || b.progress > 0, 60_000);
+      const res = await cancel(up.body.id);
+      expect(res.status).toBe(200);
+      expect(res.body.status).toBe('cancelled');
+      expect(await jobDone(up.body.id, 'preview')).toBe('completed');
+      expect(await importOf(up.body.id)()).toMatchObject({ status: 'cancelled', totalRows: 0, error: null });
+      expect(await LineImportRow.count({ where: { importId: up.body.id } })).toBe(0);
+    } finally {
+      await sequelize.query(`drop trigger ${fn} on line_import_rows; drop function ${fn}()`);
+    }
+  });
+
+  it('cancelled while its apply is writing, the apply rolls back: no line, no audit entry, no mail', async () => {
+    const p = testPrefix('WCANAPP');
+    const file = `${p}.csv`;
+    const rows = Array.from({ length: 12_000 }, (_, i) => lineRow(`${p}-${String(i).padStart(5, '0')}`));
+    const up = await users.planner.upload('/api/line-imports', file, toCsv(rows));
+    await waitFor('the preview', importOf(up.body.id), (b) => b.status === 'previewed', 60_000);
+    const fn = `lw_test_slow_${p.replace(/\W/g, '_').toLowerCase()}`;
+    await sequelize.query(`create function ${fn}() returns trigger language plpgsql as $$ begin
+      if new.line_number = '${p}-11000' then perform pg_sleep(1.5); end if; return new; end $$`);
+    await sequelize.query(`create trigger ${fn} before insert on lines for each row execute function ${fn}()`);
+    try {
+      expect((await users.planner.post(`/api/line-imports/${up.body.id}/confirm`)).status).toBe(202);
+      await waitFor('progress part-way', importOf(up.body.id), (b) => b.status !== 'applying' || b.progress > 0, 60_000);
+      const res = await cancel(up.body.id);
+      expect(res.body).toMatchObject({ status: 'cancelled', appliedAt: null });
+      expect(await jobDone(up.body.id, 'apply')).toBe('completed');
+    } finally {
+      await sequelize.query(`drop trigger ${fn} on lines; drop function ${fn}()`);
+    }
+    expect((await importOf(up.body.id)()).status).toBe('cancelled');
+    expect(await Line.count({ where: { lineNumber: { [Op.startsWith]: p } } })).toBe(0);
+    expect(await AuditEntry.count({ where: { action: 'line-import-applied', entityId: up.body.id } })).toBe(0);
+    expect(await AuditEntry.count({ where: { action: 'line-import-cancelled', entityId: up.body.id } })).toBe(1);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(await mailAbout(file)).toEqual([]);
   });
 });

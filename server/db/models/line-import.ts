@@ -1,5 +1,6 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
+import { Person } from '@server/db/models/person';
 import type { ImportKind, ImportStatus, ImportCounts, RowOutcome } from '@shared/schemas/line-imports';
 
 /** One uploaded register file: its preview, then (once confirmed) its application. */
@@ -17,8 +18,11 @@ export class LineImport extends Model<InferAttributes<LineImport>, InferCreation
   declare confirmedById: string | null;
   declare previewedAt: CreationOptional<Date | null>;
   declare appliedAt: Date | null;
+  declare cancelledAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  /** Who uploaded the file (include 'uploader'). */
+  declare uploader?: NonAttribute<Person>;
 }
 
 LineImport.init(
@@ -36,14 +40,17 @@ LineImport.init(
     confirmedById: { type: DataTypes.UUID },
     previewedAt: { type: DataTypes.DATE },
     appliedAt: { type: DataTypes.DATE },
+    cancelledAt: { type: DataTypes.DATE },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },
   { sequelize, tableName: 'line_imports', defaultScope: { attributes: { exclude: ['source'] } } },
 );
 
+LineImport.belongsTo(Person, { as: 'uploader', foreignKey: 'createdById' });
+
+/** One row of an import's preview, known by its import and the file's row number. */
 export class LineImportRow extends Model<InferAttributes<LineImportRow>, InferCreationAttributes<LineImportRow>> {
-  declare id: CreationOptional<string>;
   declare importId: string;
   declare rowNumber: number;
   declare outcome: RowOutcome;
@@ -51,18 +58,40 @@ export class LineImportRow extends Model<InferAttributes<LineImportRow>, InferCr
   declare data: Record<string, unknown> | null;
   declare changes: Record<string, { from: unknown; to: unknown }> | null;
   declare problems: { column: string; message: string }[] | null;
+  // A lines preview's new or changed line, as `lines` will have it (null otherwise).
+  declare area: CreationOptional<string | null>;
+  declare service: CreationOptional<string | null>;
+  declare material: CreationOptional<string | null>;
+  declare schedule: CreationOptional<string | null>;
+  declare sdr: CreationOptional<number | null>;
+  declare nominalSize: CreationOptional<string | null>;
+  declare nominalSizeIn: CreationOptional<number | null>;
+  declare designPressurePsi: CreationOptional<number | null>;
+  declare designTemperatureF: CreationOptional<number | null>;
+  declare drawingRef: CreationOptional<string | null>;
+  declare notes: CreationOptional<string | null>;
 }
 
 LineImportRow.init(
   {
-    id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
-    importId: { type: DataTypes.UUID, allowNull: false },
-    rowNumber: { type: DataTypes.INTEGER, allowNull: false },
+    importId: { type: DataTypes.UUID, allowNull: false, primaryKey: true },
+    rowNumber: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true },
     outcome: { type: DataTypes.TEXT, allowNull: false },
     key: { type: DataTypes.TEXT },
     data: { type: DataTypes.JSONB },
     changes: { type: DataTypes.JSONB },
     problems: { type: DataTypes.JSONB },
+    area: { type: DataTypes.TEXT },
+    service: { type: DataTypes.TEXT },
+    material: { type: DataTypes.TEXT },
+    schedule: { type: DataTypes.TEXT },
+    sdr: { type: DataTypes.REAL },
+    nominalSize: { type: DataTypes.TEXT },
+    nominalSizeIn: { type: DataTypes.REAL },
+    designPressurePsi: { type: DataTypes.REAL },
+    designTemperatureF: { type: DataTypes.REAL },
+    drawingRef: { type: DataTypes.TEXT },
+    notes: { type: DataTypes.TEXT },
   },
   { sequelize, tableName: 'line_import_rows', timestamps: false },
 );

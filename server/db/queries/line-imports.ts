@@ -4,7 +4,7 @@
 
 import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
-import { CHUNK_ROWS, chunks, copyIn, copyText } from '@server/db/copy';
+import { CHUNK_ROWS, copyIn, copyText } from '@server/db/copy';
 import type { ImportKind, RowOutcome } from '@shared/schemas/line-imports';
 import type { IsolationKind, PipeMaterial } from '@shared/schemas/lines';
 
@@ -79,61 +79,94 @@ export interface PreviewRowData {
   rowNumber: number;
   outcome: RowOutcome;
   key: string | null;
+  /** A rejected row's cells as written, or an isolation point's values. */
   data: Record<string, unknown> | null;
+  /** A lines preview's new or changed line, written to the typed columns. */
+  line: RegisterLine | null;
   changes: unknown;
   problems: unknown;
 }
 
-/**
- * Replaces an import's preview rows (a re-run writes the same rows again) with one
- * `COPY … from stdin` on the transaction's connection, ~10k rows a batch. For 100,000 new rows
- * ~1.8 s against ~2.3 s for one jsonb_to_recordset insert … select per chunk; most of what is
- * left is the per-row foreign-key check on import_id (~0.7 s) and parsing the jsonb.
- */
-export async function replacePreviewRows(importId: string, rows: readonly PreviewRowData[], t: Transaction, onBatch: (done: number, of: number) => Promise<void>): Promise<void> {
+export async function deletePreviewRows(importId: string, t: Transaction): Promise<void> {
   await sequelize.query('delete from line_import_rows where import_id = $1', { bind: [importId], transaction: t });
-  const id = copyText(importId);
-  const json = (v: unknown) => (v === null || v === undefined ? '\\N' : copyText(JSON.stringify(v)));
-  async function* batches() {
-    const parts = chunks(rows, CHUNK_ROWS);
-    for (const [i, part] of parts.entries()) {
-      let out = '';
-      for (const r of part) out += `${id}\t${r.rowNumber}\t${r.outcome}\t${copyText(r.key)}\t${json(r.data)}\t${json(r.changes)}\t${json(r.problems)}\n`;
-      yield out;
-      await onBatch(i + 1, parts.length);
-    }
-  }
-  await copyIn(t, 'copy line_import_rows (import_id, row_number, outcome, key, data, changes, problems) from stdin', batches());
+}
+
+const COPY_PREVIEW_ROWS = `copy line_import_rows (import_id, row_number, outcome, key, data, changes, problems, area, service, material,
+  schedule, sdr, nominal_size, nominal_size_in, design_pressure_psi, design_temperature_f, drawing_ref, notes) from stdin`;
+const NULL = '\\N';
+const json = (v: unknown) => (v === null || v === undefined ? NULL : copyText(JSON.stringify(v)));
+const num = (v: number | null) => (v === null ? NULL : String(v));
+
+/**
+ * One preview row as a line of `COPY line_import_rows … from stdin` (text format), without its
+ * line break (join the lines with '\n', and end with one). A lines row's values go to typed
+ * columns, so nothing is built or parsed as JSON for the 100,000 rows of a large file; only
+ * rejected rows (their cells) and changes travel as JSON. `importId` is COPY text already. The
+ * fields are joined in one step: a chain of concatenations would leave ~40 small strings a row
+ * for the garbage collector.
+ */
+export function previewRowLine(importId: string, r: PreviewRowData): string {
+  const l = r.line;
+  return [
+    importId, r.rowNumber, r.outcome, copyText(r.key), json(r.data), json(r.changes), json(r.problems),
+    l ? copyText(l.area) : NULL, l ? copyText(l.service) : NULL, l ? l.material : NULL, l ? copyText(l.schedule) : NULL, l ? num(l.sdr) : NULL,
+    l ? copyText(l.nominalSize) : NULL, l ? l.nominalSizeIn : NULL, l ? l.designPressurePsi : NULL, l ? l.designTemperatureF : NULL,
+    l ? copyText(l.drawingRef) : NULL, l ? copyText(l.notes) : NULL,
+  ].join('\t');
+}
+
+/** Adds preview rows, given as pieces of text made of previewRowLine's lines, with one COPY on the transaction's connection. */
+export async function copyPreviewLines(parts: string[], t: Transaction): Promise<void> {
+  if (parts.length) await copyIn(t, COPY_PREVIEW_ROWS, parts);
+}
+
+/** An import's status as committed now (another transaction's cancel shows at once). */
+export async function importStatus(importId: string, t: Transaction): Promise<string | null> {
+  const [row] = await select<{ status: string }>('select status from line_imports where id = $1', [importId], t);
+  return row?.status ?? null;
+}
+
+/** The start of an import's file, enough for its header (PostgreSQL reads only that much of the stored text). */
+export async function importFileStart(importId: string, chars: number, t: Transaction): Promise<{ text: string; whole: boolean }> {
+  const [row] = await select<{ text: string }>('select substr(source, 1, $2) as text from line_imports where id = $1', [importId, chars], t);
+  const text = row?.text ?? '';
+  return { text, whole: text.length < chars };
 }
 
 // ── applying a confirmed import ─────────────────────────────────────────────────────────────────
-// Rows come straight from the preview's line_import_rows (insert … select … on conflict do update),
-// ~10k row numbers a statement, so nothing travels back through Node and what is written is exactly
-// what was shown.
+// Rows come straight from the preview's line_import_rows, ~10k row numbers a statement, so nothing
+// travels back through Node and what is written is exactly what was shown. New lines are plainly
+// inserted (no ON CONFLICT: its speculative insertion cost ~30 % more): the apply holds the register
+// lock and no import was applied since the preview, so a line the preview did not find is not there
+// (if one were, the unique line number refuses the insert and nothing is written). Changed lines are
+// updated in place.
 
-const TO_WRITE = `r.import_id = $1 and r.outcome in ('new', 'changed') and r.row_number between $2 and $3`;
+const WRITE_RANGE = `r.import_id = $1 and r.row_number between $2 and $3`;
+
+const INSERT_NEW_LINES = `
+  insert into lines (line_number, area, service, material, schedule, sdr, nominal_size, nominal_size_in,
+                     design_pressure_psi, design_temperature_f, drawing_ref, notes)
+  select r.key, r.area, r.service, r.material, r.schedule, r.sdr, r.nominal_size, r.nominal_size_in, r.design_pressure_psi,
+         r.design_temperature_f, r.drawing_ref, r.notes
+  from line_import_rows r where ${WRITE_RANGE} and r.outcome = 'new'`;
 
 // drawing_ref and notes follow the file only when the file has those columns ($4, $5).
-const UPSERT_LINES = `
-  insert into lines as l (line_number, area, service, material, schedule, sdr, nominal_size, nominal_size_in,
-                          design_pressure_psi, design_temperature_f, drawing_ref, notes)
-  select r.key, r.data->>'area', r.data->>'service', r.data->>'material', r.data->>'schedule', (r.data->>'sdr')::real,
-         r.data->>'nominalSize', (r.data->>'nominalSizeIn')::real, (r.data->>'designPressurePsi')::real,
-         (r.data->>'designTemperatureF')::real, r.data->>'drawingRef', r.data->>'notes'
-  from line_import_rows r where ${TO_WRITE}
-  on conflict (line_number) do update set
-    area = excluded.area, service = excluded.service, material = excluded.material, schedule = excluded.schedule,
-    sdr = excluded.sdr, nominal_size = excluded.nominal_size, nominal_size_in = excluded.nominal_size_in,
-    design_pressure_psi = excluded.design_pressure_psi, design_temperature_f = excluded.design_temperature_f,
-    drawing_ref = case when $4 then excluded.drawing_ref else l.drawing_ref end,
-    notes = case when $5 then excluded.notes else l.notes end,
+const UPDATE_CHANGED_LINES = `
+  update lines l set
+    area = r.area, service = r.service, material = r.material, schedule = r.schedule, sdr = r.sdr, nominal_size = r.nominal_size,
+    nominal_size_in = r.nominal_size_in, design_pressure_psi = r.design_pressure_psi, design_temperature_f = r.design_temperature_f,
+    drawing_ref = case when $4 then r.drawing_ref else l.drawing_ref end,
+    notes = case when $5 then r.notes else l.notes end,
     updated_at = now()
-  where (l.area, l.service, l.material, l.schedule, l.sdr, l.nominal_size, l.nominal_size_in, l.design_pressure_psi,
+  from line_import_rows r
+  where ${WRITE_RANGE} and r.outcome = 'changed' and l.line_number = r.key
+    and (l.area, l.service, l.material, l.schedule, l.sdr, l.nominal_size, l.nominal_size_in, l.design_pressure_psi,
          l.design_temperature_f, l.drawing_ref, l.notes)
-    is distinct from
-        (excluded.area, excluded.service, excluded.material, excluded.schedule, excluded.sdr, excluded.nominal_size,
-         excluded.nominal_size_in, excluded.design_pressure_psi, excluded.design_temperature_f,
-         case when $4 then excluded.drawing_ref else l.drawing_ref end, case when $5 then excluded.notes else l.notes end)`;
+      is distinct from
+        (r.area, r.service, r.material, r.schedule, r.sdr, r.nominal_size, r.nominal_size_in, r.design_pressure_psi,
+         r.design_temperature_f, case when $4 then r.drawing_ref else l.drawing_ref end, case when $5 then r.notes else l.notes end)`;
+
+const TO_WRITE = `r.import_id = $1 and r.outcome in ('new', 'changed') and r.row_number between $2 and $3`;
 
 const UPSERT_POINTS = `
   insert into isolation_points as ip (tag, line_id, kind, normal_position, notes)
@@ -157,21 +190,26 @@ export async function firstRowWithMissingLine(importId: string, t: Transaction):
 }
 
 /**
- * Upserts the import's new and changed rows into the register, CHUNK_ROWS row numbers a statement.
+ * Writes the import's new and changed rows into the register, CHUNK_ROWS row numbers a statement.
  * `keep` says which optional columns the file carried (an absent column keeps the stored value).
  */
-export async function upsertImportRows(
-  importId: string, kind: ImportKind, keep: { drawingRef: boolean; notes: boolean }, t: Transaction, onChunk: (fraction: number) => Promise<void>,
+export async function writeImportRows(
+  importId: string, kind: ImportKind, keep: { drawingRef: boolean; notes: boolean }, t: Transaction, beforeChunk: () => Promise<void>,
+  onChunk: (fraction: number) => Promise<void>,
 ): Promise<void> {
   const [range] = await select<{ first: number | null; last: number | null }>(
     'select min(row_number) as first, max(row_number) as last from line_import_rows where import_id = $1', [importId], t,
   );
   const first = range?.first ?? 0;
   const last = range?.last ?? -1;
-  const sql = kind === 'lines' ? UPSERT_LINES : UPSERT_POINTS;
+  const statements = kind === 'lines' ? [INSERT_NEW_LINES, UPDATE_CHANGED_LINES] : [UPSERT_POINTS];
   const flags = kind === 'lines' ? [keep.drawingRef, keep.notes] : [keep.notes];
   for (let from = first; from <= last; from += CHUNK_ROWS) {
-    await sequelize.query(sql, { bind: [importId, from, from + CHUNK_ROWS - 1, ...flags], transaction: t });
+    await beforeChunk();
+    for (const sql of statements) {
+      const bind = [importId, from, from + CHUNK_ROWS - 1, ...(sql === INSERT_NEW_LINES ? [] : flags)];
+      await sequelize.query(sql, { bind, transaction: t });
+    }
     await onChunk((from + CHUNK_ROWS - first) / (last - first + 1));
   }
 }

@@ -2,7 +2,9 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { ISOLATION_POINT_CSV_COLUMNS, LINE_CSV_COLUMNS } from '@shared/schemas/register-columns';
 import { demoPlant, toCsv } from '../../../scripts/demo-plant';
-import { decodeCsv, estimateRows, normaliseHeader, readColumns, readRows, type Columns, type LineField, type PointField } from './register-csv';
+import { decodeCsv } from './csv-text';
+import { cellValue, readRows } from './data-rows';
+import { estimateRows, normaliseHeader, readColumns, type Columns, type LineField, type PointField } from './register-csv';
 import { checkPointRow, diffValues, lineDiffFields, lineRowChecker, pointDiffFields, type LineValues, type PointValues } from './register-rows';
 
 const LINES_HEADER = 'line_number,area,service,material,schedule,nominal_size,design_pressure_psi,design_temperature_f,drawing,notes';
@@ -10,7 +12,7 @@ const LINES_HEADER = 'line_number,area,service,material,schedule,nominal_size,de
 function checkLines(text: string) {
   const cols = readColumns(text) as Columns<LineField>;
   const check = lineRowChecker(cols);
-  return { cols, rows: readRows(text, cols).map((r) => ({ rowNumber: r.rowNumber, result: check(r.cells) })) };
+  return { cols, rows: [...readRows(text, cols)].map((r) => ({ rowNumber: r.rowNumber, result: check(r.cells) })) };
 }
 
 function valuesOf<V>(results: { result: { ok: true; values: V } | { ok: false } }[]): V[] {
@@ -106,6 +108,44 @@ describe('reading the text of a file', () => {
   });
 });
 
+describe('what reading a row found wrong rejects that row, naming it', () => {
+  it('a cell with a character the file\'s encoding does not define (U+FFFD) is rejected, naming its column', () => {
+    const text = decodeCsv(Buffer.from(`${LINES_HEADER}\nL-1,A,S,PVC,80,1,100,70,D,caf\xe9 \x81 note\n`, 'latin1'));
+    expect(checkLines(text).rows[0]!.result).toEqual({ ok: false, problems: [{ column: 'notes', message: expect.stringMatching(/^This cell holds a character that could not be read/) }] });
+  });
+
+  it('an unclosed quote and text after a closing quote each reject their row with the column and what to do', () => {
+    const { rows } = checkLines(`${LINES_HEADER}\nL-1,A,S,PVC,80,1,100,70,D,"never closed\nL-2,A,S,PVC,80,1,100,70,"2" drawing,\nL-3,A,S,PVC,80,1,100,70,,\n`);
+    expect(rows.map((r) => [r.rowNumber, r.result.ok])).toEqual([[2, false], [3, false], [4, true]]);
+    expect(rows[0]!.result).toEqual({ ok: false, problems: [{ column: 'notes', message: expect.stringMatching(/^A quote \(".*never closed on its row.*Close the quote/) }] });
+    expect(rows[1]!.result).toEqual({ ok: false, problems: [{ column: 'drawing', message: expect.stringMatching(/^Text follows the quote/) }] });
+  });
+
+  it('a header whose quote is not closed refuses the file', () => {
+    expect(() => readColumns('line_number,"area\nX,Y\n')).toThrow(/^The header \(row 1\) has a quote/);
+  });
+});
+
+describe('the apostrophe the export puts before a formula-like cell', () => {
+  it('comes off again, exactly one, only before =, +, -, @, a tab or a line break, and what follows is kept as it is', () => {
+    for (const [cell, value] of [["'=A1", '=A1'], ["'+1", '+1'], ["'-see drawing", '-see drawing'], ["'@SUM(A1)", '@SUM(A1)'], ["'\tx ", '\tx '], ["'\r\nx", '\r\nx'], ["''=x", "''=x"], ["'hello", "'hello"], ['  =x  ', '=x']]) {
+      expect(cellValue(cell!), JSON.stringify(cell)).toBe(value);
+    }
+  });
+
+  it('a line number or tag may not begin with a formula character at all', () => {
+    const { rows } = checkLines(`${LINES_HEADER}\n=1+1,A,S,PVC,80,1,100,70,,\n'-100,A,S,PVC,80,1,100,70,,\n@L,A,S,PVC,80,1,100,70,,\n`);
+    expect(rows.map((r) => r.result)).toEqual([
+      { ok: false, problems: [{ column: 'line_number', message: expect.stringMatching(/^"=1\+1" begins with "=", which a spreadsheet takes for the start of a formula/) }] },
+      { ok: false, problems: [{ column: 'line_number', message: expect.stringMatching(/^"-100" begins with "-"/) }] },
+      { ok: false, problems: [{ column: 'line_number', message: expect.stringMatching(/^"@L" begins with "@"/) }] },
+    ]);
+    const points = 'tag,line_number,kind,normal_position\n+HV-1,L-1,valve,open\n';
+    const cols = readColumns(points) as Columns<PointField>;
+    expect([...readRows(points, cols)].map((r) => checkPointRow(r.cells, cols))).toEqual([{ ok: false, problems: [{ column: 'tag', message: expect.stringMatching(/^"\+HV-1" begins with "\+"/) }] }]);
+  });
+});
+
 describe('checking a lines row', () => {
   it('takes each material up to its maximum service temperature and no further', () => {
     const at = (material: string, f: number) => checkLines(`${LINES_HEADER}\nL-1,A,S,${material},80,1,100,${f},,\n`).rows[0]!.result;
@@ -146,7 +186,7 @@ describe('the demo plant and the sample files', () => {
     expect(valuesOf(checkLines(toCsv(plant.lines)).rows)).toHaveLength(plant.lines.length);
     const pointsText = toCsv(plant.points);
     const cols = readColumns(pointsText) as Columns<PointField>;
-    expect(readRows(pointsText, cols).every((r) => checkPointRow(r.cells, cols).ok)).toBe(true);
+    expect([...readRows(pointsText, cols)].every((r) => checkPointRow(r.cells, cols).ok)).toBe(true);
     expect(new Set(plant.lines.map((l) => l.material))).toEqual(new Set(['PVC', 'CPVC', 'ABS']));
   });
 
@@ -165,7 +205,7 @@ describe('the demo plant and the sample files', () => {
   it('docs/sample-isolation-points.csv names only demo lines and shows new, changed and unchanged points', () => {
     const read = (text: string) => {
       const cols = readColumns(text) as Columns<PointField>;
-      return { cols, values: valuesOf<PointValues>(readRows(text, cols).map((r) => ({ result: checkPointRow(r.cells, cols) }))) };
+      return { cols, values: valuesOf<PointValues>([...readRows(text, cols)].map((r) => ({ result: checkPointRow(r.cells, cols) }))) };
     };
     const existing = new Map(read(toCsv(plant.points)).values.map((v) => [v.tag, v]));
     const sample = read(readFileSync('docs/sample-isolation-points.csv', 'utf8'));

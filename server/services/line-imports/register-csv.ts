@@ -4,13 +4,13 @@
 // "Design Pressure (psi)" reads as design_pressure_psi. Units live in the header. Which columns
 // there are, and their other names and units, is shared/schemas/register-columns.ts.
 
-import Papa from 'papaparse';
 import { AppError } from '@server/errors';
 import type { ImportKind } from '@shared/schemas/line-imports';
 import {
   columnList, REGISTER_COLUMNS, REGISTER_KEY_FIELD, type LineField, type PointField, type PressureUnit, type RegisterColumn,
   type TemperatureUnit,
 } from '@shared/schemas/register-columns';
+import { countFilledLines, csvRecords, isBlank, type CsvRecord } from './csv-text';
 
 export type { LineField, PointField, PressureUnit, TemperatureUnit };
 
@@ -43,6 +43,9 @@ export interface Columns<F extends string> {
   temperatureUnit: TemperatureUnit;
   /** Fields by position in the file; null for a column without a name (ignored). */
   byIndex: (F | null)[];
+  /** The header's row number, and where the first record after it starts in the text. */
+  headerRow: number;
+  dataStart: number;
 }
 export type AnyColumns = Columns<LineField> | Columns<PointField>;
 
@@ -56,39 +59,39 @@ export function normaliseHeader(raw: string): string {
     .replace(/^_+|_+$/g, '');
 }
 
-/** Decodes an upload: UTF-8 (BOM dropped), or Windows-1252 when the bytes are not UTF-8. */
-export function decodeCsv(buffer: Buffer): string {
-  if (buffer.includes(0)) throw AppError.badRequest('This file is not a text CSV file (it holds binary data). Save it from the spreadsheet as "CSV".');
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(buffer);
-  } catch {
-    text = new TextDecoder('windows-1252').decode(buffer);
-  }
-  return text.replace(/^\uFEFF/, '');
-}
-
 function refuseHeader(message: string): never {
   throw AppError.badRequest(message, { file: [message] });
 }
 
-/** Reads the header row, decides the kind of file and maps each column; refuses the whole file when it cannot. */
+/** Reads the header row (the first row that is not blank), decides the kind of file and maps each column; refuses the whole file when it cannot. */
 export function readColumns(text: string): AnyColumns {
-  const first = Papa.parse<string[]>(text, { delimiter: ',', preview: 1, skipEmptyLines: 'greedy' }).data[0] ?? [];
+  let header: CsvRecord | null = null;
+  for (const record of csvRecords(text)) {
+    if (!isBlank(record.cells)) {
+      header = record;
+      break;
+    }
+  }
+  if (!header) refuseHeader(`The file is empty. The first row must name the columns: ${columnList('lines')}.`);
+  if (header.quote) {
+    refuseHeader(`The header (row ${header.row}) has a quote (") that is not closed where its column name ends; correct the column names and upload again.`);
+  }
+  const first = header.cells;
   const names = first.map(normaliseHeader);
-  if (names.every((n) => n === '')) refuseHeader(`The file is empty. The first row must name the columns: ${columnList('lines')}.`);
   const kind: ImportKind = names.includes(POINTS_MARK) ? 'isolation-points' : 'lines';
+  const at = { headerRow: header.row, dataStart: header.next };
   return kind === 'lines'
-    ? mapColumns<LineField>(kind, first, names, LINE_HEADERS, REGISTER_COLUMNS.lines)
-    : mapColumns<PointField>(kind, first, names, POINT_HEADERS, REGISTER_COLUMNS['isolation-points']);
+    ? mapColumns<LineField>(kind, first, names, LINE_HEADERS, REGISTER_COLUMNS.lines, at)
+    : mapColumns<PointField>(kind, first, names, POINT_HEADERS, REGISTER_COLUMNS['isolation-points'], at);
 }
 
 function mapColumns<F extends string>(
   kind: ImportKind, raw: string[], names: string[], known: ReadonlyMap<string, HeaderSpec<F>>, columns: readonly RegisterColumn<F>[],
+  at: { headerRow: number; dataStart: number },
 ): Columns<F> {
   const what = kind === 'lines' ? 'A lines file' : 'An isolation-points file';
   const help = columnList(kind);
-  const cols: Columns<F> = { kind, header: {}, pressureUnit: 'psi', temperatureUnit: 'F', byIndex: [] };
+  const cols: Columns<F> = { kind, header: {}, pressureUnit: 'psi', temperatureUnit: 'F', byIndex: [], ...at };
   names.forEach((name, i) => {
     const spec = known.get(name);
     const shown = (raw[i] ?? '').replace(/^\uFEFF/, '').trim();
@@ -124,28 +127,13 @@ function suggestion(column: RegisterColumn): string {
   return others.length ? `${column.column} (or ${others.join(', ')})` : column.column;
 }
 
-export type RawRow<F extends string> = Partial<Record<F, string>> & { __parsed_extra?: string[] };
-
-/** The data rows, keyed by field; row numbers count the header as row 1 (blank lines are skipped). */
-export function readRows<F extends string>(text: string, cols: Columns<F>): { rowNumber: number; cells: RawRow<F> }[] {
-  const parsed = Papa.parse<RawRow<F>>(text, {
-    delimiter: ',',
-    header: true,
-    skipEmptyLines: 'greedy',
-    transformHeader: (_h, i) => cols.byIndex[i] ?? `__unnamed_${i}`,
-    transform: (v) => v.trim(),
-  });
-  return parsed.data.map((cells, i) => ({ rowNumber: i + 2, cells }));
-}
-
-/** Counts rows cheaply (an upper bound: line breaks), to decide between inline and the queue. */
+/** At least as many as the file's data rows (lines with something in them, less the header), to decide between inline and the queue. */
 export function estimateRows(text: string): number {
-  let n = 0;
-  for (let i = text.indexOf('\n'); i !== -1; i = text.indexOf('\n', i + 1)) n++;
-  return text.endsWith('\n') ? n - 1 : n;
+  return Math.max(0, countFilledLines(text) - 1);
 }
 
 /** True when the file has at least one data row after the header. */
-export function hasDataRows(text: string): boolean {
-  return Papa.parse(text, { delimiter: ',', preview: 2, skipEmptyLines: 'greedy' }).data.length > 1;
+export function hasDataRows(text: string, cols: AnyColumns): boolean {
+  for (const record of csvRecords(text, cols.dataStart, cols.headerRow + 1)) if (!isBlank(record.cells)) return true;
+  return false;
 }

@@ -5,7 +5,8 @@ import {
   fToC, maxServiceTemperatureF, nominalSizeLabel, parseNominalSize, parsePipeMaterial, parsePressure, parseTemperature, unknownSizeReason,
 } from '@shared/trade';
 import { ISOLATION_KINDS, ISOLATION_POSITIONS, type IsolationKind, type PipeMaterial } from '@shared/schemas/lines';
-import type { Columns, LineField, PointField, PressureUnit, RawRow, TemperatureUnit } from './register-csv';
+import type { RawRow } from './data-rows';
+import type { Columns, LineField, PointField, PressureUnit, TemperatureUnit } from './register-csv';
 
 export interface Problem {
   column: string;
@@ -52,19 +53,46 @@ class RowCheck<F extends string> {
     if (v.length > max) return this.problem(field, `Too long: ${v.length} characters, at most ${max}.`);
     return v;
   }
+  /** A required cell read by `reader` (at most 30 characters: codes and numbers). */
+  read<T>(field: F, what: string, reader: (v: string) => Cell<T>): T | null {
+    const v = this.text(field, what, 30, true);
+    if (v === null) return null;
+    const r = reader(v);
+    return r.ok ? r.value : this.problem(field, r.message);
+  }
   raw(field: F): string {
     return this.cells[field] ?? '';
   }
+  /** What reading the row found: a stray quote, cells beyond the header, values without a column, unreadable characters. */
   shape(): void {
-    if (this.cells.__parsed_extra?.length) {
-      this.problems.push({ column: '(row)', message: `This row has ${this.cells.__parsed_extra.length} cell(s) more than the header; is there a comma in a value that needs quotes?` });
+    const cells = this.cells;
+    if (cells.__quote) this.problems.push({ column: cells.__quote.column, message: QUOTE_MESSAGES[cells.__quote.kind] });
+    if (cells.__extra) {
+      this.problems.push({ column: '(row)', message: `This row has ${cells.__extra} cell(s) more than the header; is there a comma in a value that needs quotes?` });
     }
-    if (!this.cols.byIndex.includes(null)) return;
-    for (const [k, v] of Object.entries(this.cells)) {
-      if (k.startsWith('__unnamed_') && v) this.problems.push({ column: '(unnamed)', message: `"${v}" is in a column without a name; name the column or remove the value.` });
+    if (cells.__unnamed) {
+      for (const v of cells.__unnamed) this.problems.push({ column: '(unnamed)', message: `"${v}" is in a column without a name; name the column or remove the value.` });
     }
+    if (cells.__unreadable) for (const field of cells.__unreadable) this.problem(field, UNREADABLE);
+  }
+  /** A key (line number, tag) a spreadsheet would take for a formula is refused: it could never be exported safely. */
+  key(field: F, v: string | null): string | null {
+    return v !== null && FORMULA_LEAD.test(v) ? this.problem(field, `"${v}" begins with ${leadName(v)}, which a spreadsheet takes for the start of a formula; a line number or tag may not begin with =, +, -, @, a tab or a line break.`) : v;
   }
 }
+
+/** What a spreadsheet takes for the start of a formula (the export puts an apostrophe before these). */
+const FORMULA_LEAD = /^[=+\-@\t\r\n]/;
+const leadName = (v: string) => ({ '\t': 'a tab', '\r': 'a line break', '\n': 'a line break' })[v[0]!] ?? `"${v[0]}"`;
+
+const QUOTE_MESSAGES = {
+  unclosed:
+    'A quote (") at the start of this cell is never closed on its row, so the rows below would run into this cell; the row is skipped and the rows below are read on their own. Close the quote (or remove it) and upload again.',
+  'text-after': 'Text follows the quote (") that closes this cell. Put the whole cell in quotes and write each quote inside it twice (""), as a spreadsheet does.',
+} as const;
+
+const UNREADABLE =
+  'This cell holds a character that could not be read (shown as "\uFFFD"): the file has a byte that stands for no character in its encoding. Retype the cell, or save the file as "CSV UTF-8", and upload again.';
 
 const round1 = (v: number) => Math.round(v * 10) / 10;
 const fmt = (v: number) => String(round1(v));
@@ -140,20 +168,14 @@ export function lineRowChecker(cols: Columns<LineField>): (cells: RawRow<LineFie
   return (cells) => {
     const check = new RowCheck(cells, cols);
     check.shape();
-    const read = <T>(field: LineField, what: string, reader: (v: string) => Cell<T>): T | null => {
-      const v = check.text(field, what, 30, true);
-      if (v === null) return null;
-      const r = reader(v);
-      return r.ok ? r.value : check.problem(field, r.message);
-    };
-    const lineNumber = check.text('lineNumber', 'a line number', 100, true);
+    const lineNumber = check.key('lineNumber', check.text('lineNumber', 'a line number', 100, true));
     const area = check.text('area', 'an area', 200, true);
     const service = check.text('service', 'a service', 200, true);
-    const mat = read('material', 'a material', material);
-    const sch = read('schedule', 'a schedule or SDR', schedule);
-    const sz = read('nominalSize', 'a nominal size', size);
-    const psi = read('designPressurePsi', 'a design pressure', pressure);
-    const temp = read('designTemperatureF', 'a design temperature', temperature);
+    const mat = check.read('material', 'a material', material);
+    const sch = check.read('schedule', 'a schedule or SDR', schedule);
+    const sz = check.read('nominalSize', 'a nominal size', size);
+    const psi = check.read('designPressurePsi', 'a design pressure', pressure);
+    const temp = check.read('designTemperatureF', 'a design temperature', temperature);
     const tooHot = mat && temp ? aboveLimit(mat, temp) : null;
     if (tooHot) check.problem('designTemperatureF', tooHot);
     const drawingRef = check.text('drawingRef', 'a drawing', 200, false);
@@ -162,8 +184,8 @@ export function lineRowChecker(cols: Columns<LineField>): (cells: RawRow<LineFie
     return {
       ok: true,
       values: {
-        lineNumber: lineNumber!, area: area!, service: service!, material: mat!, ...sch!, ...sz!,
-        designPressurePsi: psi!, designTemperatureF: temp!.f, drawingRef, notes,
+        lineNumber: lineNumber!, area: area!, service: service!, material: mat!, schedule: sch!.schedule, sdr: sch!.sdr,
+        nominalSize: sz!.nominalSize, nominalSizeIn: sz!.nominalSizeIn, designPressurePsi: psi!, designTemperatureF: temp!.f, drawingRef, notes,
       },
     };
   };
@@ -173,8 +195,8 @@ export function lineRowChecker(cols: Columns<LineField>): (cells: RawRow<LineFie
 export function checkPointRow(cells: RawRow<PointField>, cols: Columns<PointField>): Checked<PointValues> {
   const check = new RowCheck(cells, cols);
   check.shape();
-  const tag = check.text('tag', 'a tag', 100, true);
-  const lineNumber = check.text('lineNumber', 'a line number', 100, true);
+  const tag = check.key('tag', check.text('tag', 'a tag', 100, true));
+  const lineNumber = check.key('lineNumber', check.text('lineNumber', 'a line number', 100, true));
   const kindText = check.text('kind', 'a kind (valve, blind or disconnect)', 20, true)?.toLowerCase() ?? null;
   const kind = kindText === null ? null : (ISOLATION_KINDS as readonly string[]).includes(kindText) ? (kindText as IsolationKind) : check.problem('kind', `"${check.raw('kind')}" is not a kind of isolation point (valve, blind or disconnect).`);
   const position = check.text('normalPosition', 'a normal position', 30, true)?.toLowerCase() ?? null;
