@@ -29,7 +29,7 @@ import {
 } from './register-rows';
 import { assertStill, type Progress } from './progress';
 
-export type PreviewRow = PreviewRowData;
+type PreviewRow = PreviewRowData;
 type Cells = RawRow<string>;
 
 /** One kind of file: which cells a chunk's lookup needs, the lookup, and one row's preview given it. */
