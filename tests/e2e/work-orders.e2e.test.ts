@@ -26,7 +26,7 @@ describe('planning a work order in the browser', () => {
     // The window is typed in the viewer's zone (Chicago, UTC−5 in April) and stored as the instant it means.
     const page = await pageAs('planner', '/work-orders', { timezoneId: 'America/Chicago' });
     await page.getByRole('heading', { name: 'Work orders' }).waitFor();
-    await page.getByRole('main').getByRole('link', { name: 'New work order' }).click();
+    await page.getByRole('main').getByRole('link', { name: 'New work order' }).first().click();
     await page.getByRole('heading', { name: 'New work order' }).waitFor();
 
     // The order: a 4-hour window (in the browser's zone), a forecast low typed in °C.
