@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { noNul, repeatedList } from './query';
 import { PIPE_MATERIALS } from '@shared/trade';
 
 /** The trade's one list of pipe materials (shared/trade/pipe-materials.ts), offered here beside its schema. */
@@ -56,21 +57,6 @@ export const lineDetailSchema = lineSchema.extend({ isolationPoints: z.array(iso
 export type LineDetailDto = z.infer<typeof lineDetailSchema>;
 
 export const LINE_SORTS = ['lineNumber', 'area', 'service', 'material', 'nominalSize', 'designPressurePsi', 'status', 'updatedAt'] as const;
-
-// PostgreSQL refuses a NUL in text ("invalid byte sequence"): refused here, it is a 400, not a 500.
-const noNul = (s: z.ZodString) => s.regex(/^[^\0]*$/, 'must not contain a NUL character');
-/**
- * A filter of several values, each sent as its own repeated parameter (`?area=A&area=B`): Express's
- * query parser gives one string or an array of strings. Values are never split, so an area may hold
- * a comma. Empty values are dropped, and no value at all is no filter.
- */
-const repeatedList = <T extends z.ZodType>(item: T) =>
-  z.preprocess((v) => {
-    const list = typeof v === 'string' ? [v] : v;
-    if (!Array.isArray(list)) return list;
-    const values = list.filter((x) => x !== '');
-    return values.length ? values : undefined;
-  }, z.array(item).optional());
 
 /** Query of the register table: paging, one sort, filters and a line-number search. */
 export const lineListQuerySchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { repeatedList } from './query';
 import { isolationPlanEntrySchema } from './isolation-plans';
 import { jointTaskSchema } from './joint-tasks';
 import { lineSchema } from './lines';
@@ -103,15 +104,6 @@ export type WorkOrderUpdate = z.infer<typeof workOrderUpdateSchema>;
 export const workOrderPlanSchema = z.object({ lateReason: text(2000).optional() });
 export const workOrderCancelSchema = z.object({ reason: text(2000) });
 export const workOrderIdParamsSchema = z.object({ id: z.uuid({ message: 'not a work order id' }) });
-
-/** A filter of several values, each sent as its own repeated parameter (as the register's list does). */
-const repeatedList = <T extends z.ZodType>(item: T) =>
-  z.preprocess((v) => {
-    const list = typeof v === 'string' ? [v] : v;
-    if (!Array.isArray(list)) return list;
-    const values = list.filter((x) => x !== '');
-    return values.length ? values : undefined;
-  }, z.array(item).optional());
 
 export const WORK_ORDER_SORTS = ['number', 'priority', 'state', 'windowStart', 'createdAt', 'updatedAt'] as const;
 export const workOrderListQuerySchema = z.object({

@@ -5,6 +5,7 @@ import {
   fToC, maxServiceTemperatureF, nominalSizeLabel, parseNominalSize, parsePipeMaterial, parsePressure, parseTemperature, unknownSizeReason,
 } from '@shared/trade';
 import { ISOLATION_KINDS, ISOLATION_POSITIONS, type IsolationKind, type PipeMaterial } from '@shared/schemas/lines';
+import type { RegisterLine, RegisterPoint } from '@server/db/queries/line-imports';
 import type { RawRow } from './data-rows';
 import type { Columns, LineField, PointField, PressureUnit, TemperatureUnit } from './register-csv';
 
@@ -13,28 +14,11 @@ export interface Problem {
   message: string;
 }
 
-export interface LineValues {
-  lineNumber: string;
-  area: string;
-  service: string;
-  material: PipeMaterial;
-  schedule: string | null;
-  sdr: number | null;
-  nominalSize: string;
-  nominalSizeIn: number;
-  designPressurePsi: number;
-  designTemperatureF: number;
-  drawingRef: string | null;
-  notes: string | null;
-}
+/** A checked lines row: the register's own line fields (as the preview reads them from the register). */
+export type LineValues = RegisterLine;
 
-export interface PointValues {
-  tag: string;
-  lineNumber: string;
-  kind: IsolationKind;
-  normalPosition: string;
-  notes: string | null;
-}
+/** A checked isolation-points row, in the register's own fields. */
+export type PointValues = RegisterPoint;
 
 export type Checked<V> = { ok: true; values: V } | { ok: false; problems: Problem[] };
 
