@@ -4,7 +4,7 @@ import { countLines, linePage, registerFacets, type LineAttributes } from '@serv
 import { AppError } from '@server/errors';
 import type { LineDetailDto, LineDto, LineListQuery, LineListResponse } from '@shared/schemas/lines';
 
-export function toLineDto(line: LineAttributes, isolationPointCount?: number): LineDto {
+export function toLineDto(line: LineAttributes, isolationPointCount?: number, openWorkOrders?: number): LineDto {
   return {
     id: line.id,
     lineNumber: line.lineNumber,
@@ -20,6 +20,7 @@ export function toLineDto(line: LineAttributes, isolationPointCount?: number): L
     notes: line.notes,
     status: line.status,
     ...(isolationPointCount === undefined ? {} : { isolationPointCount }),
+    ...(openWorkOrders === undefined ? {} : { openWorkOrders }),
     updatedAt: line.updatedAt.toISOString(),
   };
 }
@@ -27,7 +28,7 @@ export function toLineDto(line: LineAttributes, isolationPointCount?: number): L
 /** One page of the register: a count, the page itself, isolation points counted for that page only. */
 export async function listLines(q: LineListQuery): Promise<LineListResponse> {
   const [total, rows, facets] = await Promise.all([countLines(q), linePage(q), registerFacets()]);
-  return { rows: rows.map((r) => toLineDto(r, r.isolationPointCount)), total, page: q.page, pageSize: q.pageSize, facets };
+  return { rows: rows.map((r) => toLineDto(r, r.isolationPointCount, r.openWorkOrders)), total, page: q.page, pageSize: q.pageSize, facets };
 }
 
 /** One line with its isolation points in tag order; 404 naming the line when it is not in the register. */

@@ -50,6 +50,8 @@ export const lineSchema = z.object({
   notes: z.string().nullable(),
   status: lineStatusSchema,
   isolationPointCount: z.number().optional(),
+  /** Work orders on the line that are not yet released, closed or cancelled (list pages only). */
+  openWorkOrders: z.number().optional(),
   updatedAt: z.string(),
 });
 export type LineDto = z.infer<typeof lineSchema>;

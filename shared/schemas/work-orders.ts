@@ -11,6 +11,8 @@ import { materialsSchema, overlapSchema, testPressureSchema, windowPlanSchema } 
  * allowed step between them; nothing sets a state directly.
  */
 export const WORK_ORDER_STATES = ['draft', 'planned', 'isolated', 'in-work', 'curing', 'testing', 'ready', 'released', 'closed', 'cancelled'] as const;
+/** States in which an order still stands between its lines and normal service. */
+export const OPEN_WORK_ORDER_STATES = ['draft', 'planned', 'isolated', 'in-work', 'curing', 'testing', 'ready'] as const;
 export const workOrderStateSchema = z.enum(WORK_ORDER_STATES);
 export type WorkOrderState = z.infer<typeof workOrderStateSchema>;
 export const WORK_ORDER_STATE_LABELS: Record<WorkOrderState, string> = {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { lineDetailSchema, lineListResponseSchema } from '@shared/schemas/lines';
 import { useTestApp } from '../helpers/app';
+import { createOrder } from '../helpers/work-orders';
 import { Browserless, signedIn } from '../helpers/browserless';
 import { makeIsolationPoint, makeLines, uniquePrefix } from '../helpers/line-rows';
 
@@ -187,5 +188,19 @@ describe('one line of the register', () => {
     const res = await users.planner.get('/api/lines/NO-SUCH-LINE-9');
     expect(res.status).toBe(404);
     expect(res.body).toEqual({ error: { code: 'not_found', message: 'Line NO-SUCH-LINE-9 is not in the register.' } });
+  });
+});
+
+describe('a line with work still open on it', () => {
+  it('the register counts the orders not yet released, closed or cancelled on each line of the page', async () => {
+    const p = uniquePrefix('OPEN');
+    const [busy, quiet] = await makeLines(p, [{}, {}]);
+    const first = await createOrder(users.planner, [busy!]);
+    await createOrder(users.planner, [busy!]);
+    const list = async () => Object.fromEntries((await users.planner.get(`/api/lines?area=${encodeURIComponent(`${p} area`)}`)).body.rows.map((r: { lineNumber: string; openWorkOrders: number }) => [r.lineNumber, r.openWorkOrders]));
+    expect(await list()).toEqual({ [busy!.lineNumber]: 2, [quiet!.lineNumber]: 0 });
+    // A cancelled order no longer stands between the line and service.
+    expect((await users.planner.post(`/api/work-orders/${first.id}/cancellation`, { reason: 'Folded into the other order.' })).status).toBe(200);
+    expect(await list()).toEqual({ [busy!.lineNumber]: 1, [quiet!.lineNumber]: 0 });
   });
 });

@@ -17,12 +17,12 @@ if (!asRoot) console.warn('[postgres-place] not root: skipping the real PostgreS
 
 describe('the cluster folder for a project path', () => {
   it('is one folder under /var/lib/linewright per absolute path, the same every time', () => {
-    const a = clusterDirFor('/root/linewright');
+    const a = clusterDirFor('/srv/plant/linewright');
     expect(a).toMatch(/^\/var\/lib\/linewright\/[0-9a-f]{12}\/pg$/);
     expect(path.dirname(path.dirname(a))).toBe(CLUSTERS_ROOT);
-    expect(clusterDirFor('/root/linewright')).toBe(a);
-    expect(clusterDirFor('/root/./linewright/')).toBe(a);
-    expect(clusterDirFor('/root/linewright2')).not.toBe(a);
+    expect(clusterDirFor('/srv/plant/linewright')).toBe(a);
+    expect(clusterDirFor('/srv/plant/./linewright/')).toBe(a);
+    expect(clusterDirFor('/srv/plant/linewright2')).not.toBe(a);
     expect(clusterDirFor('/home/kit/linewright')).not.toBe(a);
   });
 

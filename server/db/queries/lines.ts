@@ -6,6 +6,7 @@ import { sequelize } from '@server/db/sequelize';
 import type { Line } from '@server/db/models/line';
 import { parseNominalSize } from '@shared/trade';
 import type { LineExportQuery, LineListQuery } from '@shared/schemas/lines';
+import { OPEN_WORK_ORDER_STATES } from '@shared/schemas/work-orders';
 
 /** A line as these queries return it: the model's own attributes, named as the model names them. */
 export type LineAttributes = InferAttributes<Line>;
@@ -94,17 +95,21 @@ export async function countLines(q: LineFilters): Promise<number> {
   return Number(row?.total ?? 0);
 }
 
-/** One page of matching lines, with each line's isolation points counted for that page only. */
-export async function linePage(q: LineListQuery): Promise<(LineAttributes & { isolationPointCount: number })[]> {
+const OPEN_STATES = `array[${OPEN_WORK_ORDER_STATES.map((s) => `'${s}'`).join(', ')}]`;
+
+/** One page of matching lines, with each line's isolation points and open work orders counted for that page only. */
+export async function linePage(q: LineListQuery): Promise<(LineAttributes & { isolationPointCount: number; openWorkOrders: number })[]> {
   const where = lineWhere(q);
   const n = where.bind.length;
-  const rows = await select<LineAttributes & { isolationPointCount: string }>(
-    `select p.*, (select count(*) from isolation_points ip where ip.line_id = p.id) as "isolationPointCount"
+  const rows = await select<LineAttributes & { isolationPointCount: string; openWorkOrders: string }>(
+    `select p.*, (select count(*) from isolation_points ip where ip.line_id = p.id) as "isolationPointCount",
+            (select count(*) from work_order_lines wl join work_orders o on o.id = wl.work_order_id
+              where wl.line_id = p.id and o.state = any(${OPEN_STATES})) as "openWorkOrders"
        from (select ${LINE_COLUMNS} from lines l ${where.sql} order by ${lineOrder(q)} limit $${n + 1} offset $${n + 2}) p
       order by ${lineOrder(q, 'p').replace(/p\.(\w+)/g, (_m, c: string) => `p."${camel(c)}"`)}`,
     [...where.bind, q.pageSize, (q.page - 1) * q.pageSize],
   );
-  return rows.map((r) => ({ ...r, isolationPointCount: Number(r.isolationPointCount) }));
+  return rows.map((r) => ({ ...r, isolationPointCount: Number(r.isolationPointCount), openWorkOrders: Number(r.openWorkOrders) }));
 }
 
 const camel = (snake: string) => snake.replace(/_([a-z])/g, (_m, c: string) => c.toUpperCase());

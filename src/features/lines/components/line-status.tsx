@@ -20,13 +20,19 @@ const MARKS: Record<LineStatus, React.ReactNode> = {
   ),
 };
 
-export function LineStatusMark({ status }: { status: LineStatus }) {
+/** The line's status; `openOrders` adds that work is planned or under way on it (the register's list). */
+export function LineStatusMark({ status, openOrders = 0 }: { status: LineStatus; openOrders?: number }) {
   return (
     <span className={`inline-flex items-center gap-1.5 whitespace-nowrap text-sm ${status === 'locked-out' ? 'font-semibold text-hold' : status === 'out-of-service' ? 'text-ink-soft' : 'text-ink'}`}>
       <svg aria-hidden width="14" height="14" viewBox="0 0 14 14" className="shrink-0">
         {MARKS[status]}
       </svg>
       {LINE_STATUS_LABELS[status]}
+      {openOrders > 0 && (
+        <span className="ml-1 rounded border border-ink/20 px-1.5 text-xs font-semibold text-ink">
+          {openOrders === 1 ? '1 open order' : `${openOrders} open orders`}
+        </span>
+      )}
     </span>
   );
 }

@@ -26,7 +26,7 @@ const columns: ColumnDef<LineDto>[] = [
   { id: 'nominalSize', header: 'Size', cell: ({ row }) => formatSize(row.original.nominalSize), meta: { sort: 'nominalSize', numeric: true } },
   { id: 'designPressurePsi', header: 'Design pressure', cell: ({ row }) => formatPressure(row.original.designPressurePsi), meta: { sort: 'designPressurePsi', numeric: true } },
   { id: 'designTemperatureF', header: 'Design temp.', cell: ({ row }) => formatTemperature(row.original.designTemperatureF), meta: { numeric: true, wide: true } },
-  { id: 'status', header: 'Status', cell: ({ row }) => <LineStatusMark status={row.original.status} />, meta: { sort: 'status' } },
+  { id: 'status', header: 'Status', cell: ({ row }) => <LineStatusMark status={row.original.status} openOrders={row.original.openWorkOrders} />, meta: { sort: 'status' } },
   { id: 'updatedAt', header: 'Updated', cell: ({ row }) => formatDate(row.original.updatedAt), meta: { sort: 'updatedAt', wide: true } },
 ];
 
