@@ -9,11 +9,12 @@ import * as plantSettingsVersion from '@server/db/migrations/20261204000100-plan
 import * as lineImportPreviewSpeed from '@server/db/migrations/20261205000100-line-import-preview-speed';
 import * as lineImportCancellation from '@server/db/migrations/20261205000200-line-import-cancellation';
 import * as workOrders from '@server/db/migrations/20261206000100-work-orders';
+import * as workOrderWindowIndex from '@server/db/migrations/20261206000200-work-order-window-index';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
-  lineImportPreviewSpeed, lineImportCancellation, workOrders,
+  lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex,
 ];
 
 export function migrator() {

@@ -97,10 +97,13 @@ export async function overlapsOf(orderIds: string[], t?: Transaction): Promise<M
   const out = new Map<string, OverlapDto[]>(orderIds.map((id) => [id, []]));
   if (!orderIds.length) return out;
   const rows = await select<OverlapDto & { of: string }>(
-    `with booked as (select id, number, state, window_start, window_end from work_orders where state <> 'cancelled' and window_start is not null),
-          pairs as (select a.id as a, b.id as b, b.number, b.state from booked a join booked b
-                      on a.id <> b.id and a.window_start < b.window_end and b.window_start < a.window_end
-                     where a.id = any($1::uuid[]))
+    `with mine as (select id, window_start, window_end from work_orders
+                    where id = any($1::uuid[]) and state <> 'cancelled' and window_start is not null),
+          -- && on the half-open ranges is "a starts before b ends and b starts before a ends";
+          -- work_orders_window_range_idx serves it, so only orders booked near the window are read.
+          pairs as (select a.id as a, b.id as b, b.number, b.state from mine a join work_orders b
+                      on b.id <> a.id and b.state <> 'cancelled' and b.window_start is not null
+                     and tstzrange(b.window_start, b.window_end) && tstzrange(a.window_start, a.window_end))
      select p.a as "of", p.b as "orderId", p.number, p.state, 'line' as "on", l.line_number as what
        from pairs p
        join work_order_lines la on la.work_order_id = p.a
