@@ -1,4 +1,5 @@
 import type { DefaultError, EnsureQueryDataOptions, QueryKey } from '@tanstack/react-query';
+import type { ShouldRevalidateFunctionArgs } from 'react-router-dom';
 import { ApiRequestError } from '@/lib/api-client';
 import { queryClient } from '@/lib/query-client';
 
@@ -17,3 +18,10 @@ export async function ensureOrShowRefusal<TQueryFnData, TError = DefaultError, T
   }
   return null;
 }
+
+/**
+ * For a list page whose paging, sorting and filtering live in the URL: moving within the page is
+ * fetched by the list's own query (which keeps the old page on screen), not by re-running the loader.
+ */
+export const revalidateOnOtherPagesOnly = ({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) =>
+  currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;

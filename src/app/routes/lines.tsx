@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
+import { useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { authQueries } from '@/lib/auth';
 import { may } from '@shared/permissions';
@@ -12,15 +12,14 @@ import { Button, ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
+import { revalidateOnOtherPagesOnly } from '@/lib/loaders';
 
 export async function loader({ request }: LoaderFunctionArgs) {
   await queryClient.ensureQueryData(lineQueries.list(filtersFromSearch(new URL(request.url).searchParams)));
   return null;
 }
 
-/** Paging, sorting and filtering on this page are fetched by the table's query, which keeps the old page on screen meanwhile. */
-export const shouldRevalidate = ({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) =>
-  currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
+export const shouldRevalidate = revalidateOnOtherPagesOnly;
 
 const PAGE_SIZES = [25, 50, 100];
 

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { Link, useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
+import { Link, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { workOrderQueries } from '@/features/work-orders/api';
 import { ScheduleChart } from '@/features/work-orders/components/schedule-chart';
@@ -12,6 +12,7 @@ import { Button } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Select } from '@/components/ui/field';
 import { Notice } from '@/components/ui/notice';
+import { revalidateOnOtherPagesOnly } from '@/lib/loaders';
 
 /** The week in the address bar (`?week=2027-03-01`, any day of it; this week without it) and an area. */
 function viewOf(params: URLSearchParams) {
@@ -26,8 +27,7 @@ export async function loader({ request }: LoaderFunctionArgs) {
   await queryClient.ensureQueryData(workOrderQueries.schedule(viewOf(new URL(request.url).searchParams).query));
   return null;
 }
-export const shouldRevalidate = ({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) =>
-  currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
+export const shouldRevalidate = revalidateOnOtherPagesOnly;
 
 /** "WO-2026-0008 on point HV-1 and line SA-001": one phrase per other order. */
 function overlapWords(overlaps: { number: string; on: string; what: string }[]): string {

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { useSearchParams, type LoaderFunctionArgs, type ShouldRevalidateFunctionArgs } from 'react-router-dom';
+import { useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { authQueries } from '@/lib/auth';
 import { may } from '@shared/permissions';
@@ -15,14 +15,14 @@ import { Button, ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
+import { revalidateOnOtherPagesOnly } from '@/lib/loaders';
 
 export async function loader({ request }: LoaderFunctionArgs) {
   await queryClient.ensureQueryData(workOrderQueries.list(filtersFromSearch(new URL(request.url).searchParams)));
   return null;
 }
 
-export const shouldRevalidate = ({ currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) =>
-  currentUrl.pathname === nextUrl.pathname ? false : defaultShouldRevalidate;
+export const shouldRevalidate = revalidateOnOtherPagesOnly;
 
 const PAGE_SIZES = [25, 50, 100];
 /** The register's areas, for the area filter: one line is enough to bring the facets. */
