@@ -22,6 +22,9 @@ import { workOrderRoutes } from '@server/routes/work-order-routes';
 import { jointTaskRoutes } from '@server/routes/joint-task-routes';
 import { scheduleRoutes } from '@server/routes/schedule-routes';
 import { fitterRoutes } from '@server/routes/fitter-routes';
+import { lockRoutes, orderLockoutRoutes } from '@server/routes/lockout-routes';
+import { shiftRoutes } from '@server/routes/shift-routes';
+import { photoRoutes } from '@server/routes/photo-routes';
 
 const PgStore = connectPgSimple(session);
 
@@ -68,7 +71,10 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/line-imports', lineImportRoutes);
   app.use('/api/calc', calcRoutes);
   app.use('/api/plant-settings', plantSettingsRoutes);
-  app.use('/api/work-orders', workOrderRoutes);
+  app.use('/api/work-orders', orderLockoutRoutes, workOrderRoutes);
+  app.use('/api/locks', lockRoutes);
+  app.use('/api/shift', shiftRoutes);
+  app.use('/api/photos', photoRoutes);
   app.use('/api/joint-tasks', jointTaskRoutes);
   app.use('/api/schedule', scheduleRoutes);
   app.use('/api/fitters', fitterRoutes);

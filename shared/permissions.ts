@@ -28,6 +28,7 @@ export const PERMISSIONS = {
   'locks.removeAbsent': ['supervisor'],
   // joints, holds, tests, release (DESIGN.md sections 9 and 10)
   'joints.record': ['fitter'],
+  'joints.redo': ['fitter', 'supervisor'],
   'holds.temperatureLog': ['planner', 'fitter', 'supervisor'],
   'holds.engineeringEntry': ['supervisor'],
   'tests.record': ['fitter', 'operations', 'supervisor'],

@@ -10,11 +10,12 @@ import * as lineImportPreviewSpeed from '@server/db/migrations/20261205000100-li
 import * as lineImportCancellation from '@server/db/migrations/20261205000200-line-import-cancellation';
 import * as workOrders from '@server/db/migrations/20261206000100-work-orders';
 import * as workOrderWindowIndex from '@server/db/migrations/20261206000200-work-order-window-index';
+import * as lockoutAndJointSteps from '@server/db/migrations/20261207000100-lockout-and-joint-steps';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
-  lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex,
+  lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex, lockoutAndJointSteps,
 ];
 
 export function migrator() {

@@ -8,6 +8,7 @@ import type { MailJob, MailPurpose } from '@server/queues/mail';
 import type { OutgoingMail } from './send-mail';
 import { lineImportApplied, lineImportFailed } from './templates/line-import-outcome';
 import { latePlanMail } from './work-order-mail';
+import { absentLockMail } from './lockout-mail';
 
 type Composer = (recordId: string) => Promise<OutgoingMail | null>;
 
@@ -23,6 +24,7 @@ const COMPOSERS: Record<MailPurpose, Composer> = {
   'line-import-applied': importMail(lineImportApplied),
   'line-import-failed': importMail(lineImportFailed),
   'work-order-planned-late': latePlanMail,
+  'lock-removed-absent': absentLockMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

@@ -16,6 +16,8 @@ import {
   workOrderUpdateSchema,
 } from '@shared/schemas/work-orders';
 import { jointSpecSchema } from '@shared/trade';
+import { holdSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
+import { handoverSchema, lockBoxCreateSchema, lockoutSchema, lockRemovalSchema, lockSchema, locksApplySchema, verificationSchema } from '@shared/schemas/lockout';
 
 /** Request bodies, described as the client sends them (zod's input: defaults may be left out). */
 export const REQUEST_SCHEMAS: Record<string, z.ZodType> = {
@@ -29,6 +31,13 @@ export const REQUEST_SCHEMAS: Record<string, z.ZodType> = {
   JointTasksAdd: jointTasksAddSchema,
   JointTaskFitter: jointTaskFitterSchema,
   IsolationPlanBody: isolationPlanBodySchema,
+  LocksApply: locksApplySchema,
+  LockBoxCreate: lockBoxCreateSchema,
+  LockRemoval: lockRemovalSchema,
+  Handover: handoverSchema,
+  Verification: verificationSchema,
+  StepRecord: stepRecordSchema,
+  Redo: redoSchema,
 };
 
 /** Answers, described as the server sends them (zod's output). */
@@ -57,4 +66,10 @@ export const RESPONSE_SCHEMAS: Record<string, z.ZodType> = {
   WindowPlan: windowPlanSchema,
   Overlap: overlapSchema,
   Schedule: scheduleResponseSchema,
+  Lock: lockSchema,
+  Lockout: lockoutSchema,
+  Hold: holdSchema,
+  Photo: photoSchema,
+  JointDetail: jointDetailSchema,
+  Shift: shiftSchema,
 };

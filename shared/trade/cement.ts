@@ -81,3 +81,29 @@ export function cementCheck(input: CementCheckInput): { ok: boolean; problems: s
     source: `${SOURCES.cementStandards}; ${SOURCES.transitionCement}; ${SOURCES.cementBody}`,
   };
 }
+
+/**
+ * Does the primer suit the pipe? PVC and CPVC two-step joints take an ASTM F656 primer [pub]. ABS is
+ * joined with its ASTM D2235 cement alone, without primer [practice]: "none" is the answer there.
+ */
+export function primerCheck(input: { pipeMaterial: Material | string; primerStandard: string }): { ok: boolean; problems: string[]; requiredStandard: string | null; source: string } {
+  const material = parsePipeMaterial(input.pipeMaterial);
+  if (!material) return { ok: false, problems: [`Unknown pipe material "${show(input.pipeMaterial)}": PVC, CPVC or ABS.`], requiredStandard: null, source: SOURCES.cementStandards };
+  const none = /^\s*(none|no primer|n\/a)\s*$/i.test(input.primerStandard);
+  const std = normaliseStandard(input.primerStandard);
+  const problems: string[] = [];
+  if (material === 'ABS') {
+    if (!none) problems.push(`ABS pipe is joined with ASTM ${CEMENT_FOR_MATERIAL.ABS} cement alone, without primer; record "none".`);
+  } else if (none) {
+    problems.push(`${material} two-step joints need an ASTM ${PRIMER_STANDARD} primer before the cement.`);
+  } else if (std !== PRIMER_STANDARD) {
+    const what = std ? `ASTM ${std} is not a primer for ${material}` : `"${show(input.primerStandard)}" is not a primer standard number`;
+    problems.push(`${what}; use an ASTM ${PRIMER_STANDARD} primer.`);
+  }
+  return {
+    ok: problems.length === 0,
+    problems,
+    requiredStandard: material === 'ABS' ? null : `ASTM ${PRIMER_STANDARD}`,
+    source: material === 'ABS' ? 'common practice (ABS solvent cement is applied without primer)' : SOURCES.cementStandards,
+  };
+}

@@ -15,7 +15,7 @@ export { cureSchedule, findCureSchedule, listCureSchedules, type CureScheduleInp
 export { cureCompleteAt, type CureInterval, type CureLogInput, type CureLogResult, type CureReading } from './cure-log';
 export { checkTestMedium, MIN_TEST_HOLD_MINUTES, TEST_CAPS, testPressure, type TestCap, type TestPressureInput, type TestPressureResult } from './test-pressure';
 export { chamferGuidance, CHECK_MARK_OFFSET_IN, dryFitCheck, SOCKET_DEPTH_IN, socketMarks, type DryFit } from './socket';
-export { CEMENT_FOR_MATERIAL, cementBody, cementCheck, normaliseStandard, type CementBody, type CementCheckInput } from './cement';
+export { CEMENT_FOR_MATERIAL, cementBody, cementCheck, normaliseStandard, primerCheck, type CementBody, type CementCheckInput } from './cement';
 export { cementQuantities, containersFor, JOINTS_PER_QUART, jointsPerQuart, type CementQuantities, type Container } from './materials';
 export { applicatorSize, assemblyHoldSeconds, crewAndTools, type ApplicatorKind } from './joint-handling';
 export { cementShelfLife, SHELF_LIFE_YEARS } from './shelf-life';

@@ -64,6 +64,18 @@ const TABLE: Row[] = [
   { route: 'PUT /api/joint-tasks/:id/fitter', allow: 'workOrders.plan', sample: `/api/joint-tasks/${NO_ID}/fitter`, body: {} },
   { route: 'GET /api/schedule', allow: 'workOrders.read' }, // no range: 400
   { route: 'GET /api/fitters', allow: 'workOrders.plan' },
+  { route: 'GET /api/work-orders/:id/lockout', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/lockout` },
+  { route: 'POST /api/work-orders/:id/locks', allow: 'locks.apply', sample: `/api/work-orders/${NO_ID}/locks`, body: {} },
+  { route: 'POST /api/work-orders/:id/lock-box', allow: 'locks.apply', sample: `/api/work-orders/${NO_ID}/lock-box`, body: {} },
+  { route: 'POST /api/work-orders/:id/handovers', allow: 'locks.handover', sample: `/api/work-orders/${NO_ID}/handovers`, body: {} },
+  { route: 'POST /api/work-orders/:id/verification', allow: 'isolation.verify', sample: `/api/work-orders/${NO_ID}/verification`, body: {} },
+  { route: 'POST /api/locks/:id/removal', allow: 'locks.apply', sample: `/api/locks/${NO_ID}/removal`, body: { absent: 'no' } }, // 400
+  { route: 'GET /api/shift', allow: 'workOrders.read' },
+  { route: 'GET /api/joint-tasks/:id', allow: 'workOrders.read', sample: `/api/joint-tasks/${NO_ID}` },
+  { route: 'POST /api/joint-tasks/:id/steps', allow: 'joints.record', sample: `/api/joint-tasks/${NO_ID}/steps`, body: {} },
+  { route: 'POST /api/joint-tasks/:id/redo', allow: 'joints.redo', sample: `/api/joint-tasks/${NO_ID}/redo`, body: {} },
+  { route: 'POST /api/joint-tasks/:id/photos', allow: 'joints.record', sample: `/api/joint-tasks/${NO_ID}/photos`, body: {} }, // no picture: 400
+  { route: 'GET /api/photos/:id', allow: 'workOrders.read', sample: `/api/photos/${NO_ID}` },
 ];
 
 /** The roles a row lets through, read from the permission table. */

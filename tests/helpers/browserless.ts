@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { TEST_PORTS } from './ports';
 import { DEMO_PASSWORD } from '../../scripts/demo-accounts';
 
@@ -55,11 +56,11 @@ export class Browserless {
     return res;
   }
 
-  async json<T = any>(method: string, path: string, body?: unknown, opts: { origin?: string | null } = {}) {
+  async json<T = any>(method: string, path: string, body?: unknown, opts: { origin?: string | null; headers?: Record<string, string> } = {}) {
     const res = await this.raw(path, {
       method,
       origin: opts.origin,
-      headers: body === undefined ? {} : { 'content-type': 'application/json' },
+      headers: { ...(body === undefined ? {} : { 'content-type': 'application/json' }), ...opts.headers },
       body: body === undefined ? undefined : JSON.stringify(body),
     });
     const text = await res.text();
@@ -70,6 +71,8 @@ export class Browserless {
   post = <T = any>(path: string, body?: unknown) => this.json<T>('POST', path, body ?? {});
   put = <T = any>(path: string, body?: unknown) => this.json<T>('PUT', path, body ?? {});
   del = <T = any>(path: string) => this.json<T>('DELETE', path);
+  /** A write as the shift tablet sends it: with an Idempotency-Key (a new one unless given). */
+  tablet = <T = any>(path: string, body: unknown, key: string = randomUUID()) => this.json<T>('POST', path, body, { headers: { 'Idempotency-Key': key } });
 
   async upload<T = any>(path: string, filename: string, content: string | Buffer, field = 'file') {
     const form = new FormData();

@@ -12,6 +12,8 @@ export class IsolationPlanEntry extends Model<InferAttributes<IsolationPlanEntry
   declare kind: PlanPointKind;
   declare requiredPosition: string;
   declare sortOrder: number;
+  /** Its key sits in the order's group lock box; null: locked point by point. */
+  declare lockBoxId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -25,6 +27,7 @@ IsolationPlanEntry.init(
     kind: { type: DataTypes.TEXT, allowNull: false },
     requiredPosition: { type: DataTypes.TEXT, allowNull: false },
     sortOrder: { type: DataTypes.INTEGER, allowNull: false },
+    lockBoxId: { type: DataTypes.UUID },
     createdAt: DataTypes.DATE,
   },
   { sequelize, tableName: 'isolation_plan_entries', updatedAt: false },

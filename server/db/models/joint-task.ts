@@ -18,6 +18,10 @@ export class JointTask extends Model<InferAttributes<JointTask>, InferCreationAt
   declare fitterId: CreationOptional<string | null>;
   /** Set on a redo: the task it replaces (a joint cut out). */
   declare replacesTaskId: CreationOptional<string | null>;
+  /** Set when the joint went wrong and was cut out: why, when, by whom (a new task replaces it). */
+  declare redoReason: CreationOptional<string | null>;
+  declare redoneAt: CreationOptional<Date | null>;
+  declare redoneById: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -35,6 +39,9 @@ JointTask.init(
     reducingSizeIn: { type: DataTypes.REAL },
     fitterId: { type: DataTypes.UUID },
     replacesTaskId: { type: DataTypes.UUID },
+    redoReason: { type: DataTypes.TEXT },
+    redoneAt: { type: DataTypes.DATE },
+    redoneById: { type: DataTypes.UUID },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

@@ -9,6 +9,7 @@
 import type { Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
+import { Lock } from '@server/db/models/lockout';
 import { Person } from '@server/db/models/person';
 import type { WorkOrder } from '@server/db/models/work-order';
 import { AppError } from '@server/errors';
@@ -60,6 +61,9 @@ export async function editOrder<T>(
   return sequelize.transaction(async (t) => {
     const order = await findOrder(id, t, { lock: true });
     assertEditable(order);
+    if (await Lock.count({ where: { workOrderId: order.id }, transaction: t })) {
+      throw AppError.conflict(`Locks have gone on ${order.number}'s isolation points, so its plan is fixed; to change it, have every lock removed and cancel the order, then plan a new one.`);
+    }
     if (opts.version !== undefined && opts.version !== order.version) throw await staleEdit(order, t);
     const { audit, result } = await change(order, t);
     if (!audit) return result;

@@ -3,19 +3,24 @@
 // a plan that does not fit its window needs a written reason, and operations and the requester
 // are told by mail once it is committed.
 
+import { Op } from 'sequelize';
 import { now } from '@server/clock';
+import { Hold } from '@server/db/models/joint-record';
+import { Line } from '@server/db/models/line';
+import { WorkOrderLine } from '@server/db/models/work-order';
 import { sequelize } from '@server/db/sequelize';
 import { AppError } from '@server/errors';
 import { logger } from '@server/logger';
 import { enqueueMail } from '@server/queues/mail';
 import { recordAudit } from '@server/services/audit-service';
+import { readProtection } from '@server/services/lockout/protection';
 import { may, refusalFor } from '@shared/permissions';
 import type { Me } from '@shared/schemas/roles';
 import type { WorkOrderDto } from '@shared/schemas/work-orders';
 import { AUDIT_ENTITY, getOrder } from './order-dto';
 import { compute, findOrder, loadFacts, type Computed, type OrderFacts } from './order-facts';
 import { plantTime } from './plant-time';
-import { moveTo, stateWords } from './states';
+import { moveTo } from './states';
 
 /** What keeps the plan from being submitted, each as a sentence; empty when it is complete. */
 export function planGaps(f: OrderFacts, c: Computed): string[] {
@@ -71,13 +76,21 @@ export async function cancelOrder(me: Me, id: string, reason: string): Promise<W
   await sequelize.transaction(async (t) => {
     const order = await findOrder(id, t, { lock: true });
     const before = order.state;
-    if (before !== 'draft' && before !== 'planned' && before !== 'cancelled' && before !== 'closed') {
-      if (!may(me, 'workOrders.cancelAfterIsolation')) throw AppError.forbidden(refusalFor('workOrders.cancelAfterIsolation', me.roles));
-      // The lockout records that must show every lock off come with the next issue; until then this stays refused.
-      throw AppError.conflict(`${order.number} is ${stateWords(before)}; after isolation an order is cancelled only once every lock is off, and the locks are not recorded yet.`);
-    }
+    const afterIsolation = before !== 'draft' && before !== 'planned' && before !== 'cancelled' && before !== 'closed';
+    if (afterIsolation && !may(me, 'workOrders.cancelAfterIsolation')) throw AppError.forbidden(refusalFor('workOrders.cancelAfterIsolation', me.roles));
     const state = moveTo(order, 'cancelled');
+    const { locks, entries, box } = await readProtection(order.id, t);
+    if (locks.length) {
+      const where = (l: (typeof locks)[number]) => (l.lockBoxId ? `lock box ${box?.label ?? ''}`.trim() : (entries.find((e) => e.id === l.isolationPlanEntryId)?.tag ?? '?'));
+      throw AppError.conflict(`${order.number} is cancelled only once every lock is off; still on: ${locks.map((l) => `${l.lockNumber} on ${where(l)}`).join(', ')}.`);
+    }
     await order.update({ state, cancelReason: reason, cancelledAt: now(), version: order.version + 1 }, { transaction: t });
+    if (afterIsolation) {
+      // The section was opened and is not released: its lines stay out of service until someone puts them back.
+      const lineIds = (await WorkOrderLine.findAll({ where: { workOrderId: order.id }, transaction: t })).map((l) => l.lineId);
+      await Line.update({ status: 'out-of-service' }, { where: { id: { [Op.in]: lineIds } }, transaction: t });
+      await Hold.update({ status: 'void', voidReason: `${order.number} cancelled: ${reason}` }, { where: { workOrderId: order.id, status: { [Op.in]: ['running', 'awaiting-engineering'] } }, transaction: t });
+    }
     await recordAudit({ actorId: me.id, action: 'work-order-cancelled', entity: AUDIT_ENTITY, entityId: id, before: { state: before }, after: { state, reason } }, t);
   });
   return getOrder(id);

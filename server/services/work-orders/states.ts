@@ -30,7 +30,7 @@ export const STEPS: Record<WorkOrderState, Partial<Record<WorkOrderState, string
   },
   isolated: { 'in-work': 'the first joint step', cancelled: 'a supervisor cancels it once every lock is off' },
   'in-work': { curing: 'the last assembly step', cancelled: 'a supervisor cancels it once every lock is off' },
-  curing: { testing: 'the last cure hold ends', cancelled: 'a supervisor cancels it once every lock is off' },
+  curing: { testing: 'the last cure hold ends', 'in-work': 'a joint is cut out for redo', cancelled: 'a supervisor cancels it once every lock is off' },
   testing: {
     ready: 'the test passes and every lock is off',
     'in-work': 'the test fails: leaking joints become redo tasks',
