@@ -56,5 +56,9 @@ export const jointTaskSchema = z.object({
   jointSize: z.string(),
   fitter: z.object({ id: z.string(), name: z.string() }).nullable(),
   replacesTaskId: z.string().nullable(),
+  /** How many of the joint's seven steps are recorded. */
+  stepsDone: z.number(),
+  /** Cut out for redo: a later task replaces it. */
+  redone: z.boolean(),
 });
 export type JointTaskDto = z.infer<typeof jointTaskSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { holdSchema } from './joint-steps';
 import { repeatedList } from './query';
 import { isolationPlanEntrySchema } from './isolation-plans';
 import { jointTaskSchema } from './joint-tasks';
@@ -174,5 +175,7 @@ export const workOrderSchema = workOrderRowSchema.omit({ lines: true, jointCount
   windowPlan: windowPlanSchema,
   overlaps: z.array(overlapSchema),
   history: z.array(historyEntrySchema),
+  /** The set and cure holds of the order's joints, as the database has them now. */
+  holds: z.array(holdSchema),
 });
 export type WorkOrderDto = z.infer<typeof workOrderSchema>;

@@ -46,5 +46,9 @@ describe('an order from lockout to curing', () => {
     expect(Date.parse(cure.endsAt) - Date.parse(cure.startsAt)).toBe(engine.cureMinutes * 60_000);
     expect(Date.parse(set.endsAt) - Date.parse(set.startsAt)).toBe(engine.setMinutes * 60_000);
     expect((await WorkOrder.findByPk(order.id))!.state).toBe('curing');
+    // The order's page shows each joint's progress and the holds.
+    const detail = (await users.planner.get(`/api/work-orders/${order.id}`)).body;
+    expect(detail.jointTasks.map((j: { stepsDone: number }) => j.stepsDone)).toEqual([6]); // every step but the wipe
+    expect(detail.holds.map((h: { kind: string; status: string }) => `${h.kind} ${h.status}`).sort()).toEqual(['cure running', 'set running']);
   });
 });

@@ -23,7 +23,7 @@ const ASSIGNABLE = ['draft', 'planned', 'isolated', 'in-work'];
 
 async function taskDtos(orderId: string, ids: string[]): Promise<JointTaskDto[]> {
   const facts = await loadFacts(orderId);
-  return facts.joints.filter((j) => ids.includes(j.id)).map(toJointTaskDto);
+  return facts.joints.filter((j) => ids.includes(j.id)).map((j) => toJointTaskDto(j));
 }
 
 export async function addJointTasks(me: Me, orderId: string, body: JointTasksAdd): Promise<JointTaskDto[]> {

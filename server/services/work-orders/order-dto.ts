@@ -3,9 +3,11 @@
 
 import { Op } from 'sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
+import { Hold, JointStepRecord } from '@server/db/models/joint-record';
 import { Person } from '@server/db/models/person';
 import { overlapsOf } from '@server/db/queries/work-orders';
 import { toLineDto } from '@server/services/line-service';
+import { toHoldDto } from '@server/services/joints/joint-view';
 import type { IsolationPlanEntryDto } from '@shared/schemas/isolation-plans';
 import type { JointTaskDto } from '@shared/schemas/joint-tasks';
 import type { WorkOrderDto } from '@shared/schemas/work-orders';
@@ -14,7 +16,7 @@ import { compute, loadFacts, type JointRow, type OrderFacts, type PlanRow } from
 /** The audit entries of a work order are written with this entity name, the order's id as entity id. */
 export const AUDIT_ENTITY = 'work-order';
 
-export function toJointTaskDto(j: JointRow): JointTaskDto {
+export function toJointTaskDto(j: JointRow, stepsDone = 0): JointTaskDto {
   return {
     id: j.id,
     label: j.label,
@@ -27,6 +29,8 @@ export function toJointTaskDto(j: JointRow): JointTaskDto {
     jointSize: j.jointSize,
     fitter: j.fitterId ? { id: j.fitterId, name: j.fitterName ?? '' } : null,
     replacesTaskId: j.replacesTaskId,
+    stepsDone,
+    redone: !!j.redoneAt,
   };
 }
 
@@ -49,7 +53,13 @@ async function history(orderId: string): Promise<WorkOrderDto['history']> {
 
 export async function toOrderDto(f: OrderFacts): Promise<WorkOrderDto> {
   const { order } = f;
-  const [creator, overlaps, past] = await Promise.all([Person.findByPk(order.createdById), overlapsOf([order.id]), history(order.id)]);
+  const taskIds = f.joints.map((j) => j.id);
+  const [creator, overlaps, past, steps, holds] = await Promise.all([
+    Person.findByPk(order.createdById), overlapsOf([order.id]), history(order.id),
+    JointStepRecord.count({ where: { jointTaskId: { [Op.in]: taskIds } }, group: ['jointTaskId'] }),
+    Hold.findAll({ where: { workOrderId: order.id }, order: [['createdAt', 'ASC'], ['kind', 'DESC']] }),
+  ]);
+  const done = new Map(steps.map((s) => [String(s.jointTaskId), Number(s.count)]));
   return {
     id: order.id,
     number: order.number,
@@ -73,11 +83,12 @@ export async function toOrderDto(f: OrderFacts): Promise<WorkOrderDto> {
     createdAt: order.createdAt.toISOString(),
     updatedAt: order.updatedAt.toISOString(),
     lines: f.lines.map((l) => toLineDto(l)),
-    jointTasks: f.joints.map(toJointTaskDto),
+    jointTasks: f.joints.map((j) => toJointTaskDto(j, done.get(j.id) ?? 0)),
     isolationPlan: f.plan.map(toPlanEntryDto),
     ...compute(f),
     overlaps: overlaps.get(order.id) ?? [],
     history: past,
+    holds: holds.map(toHoldDto),
   };
 }
 

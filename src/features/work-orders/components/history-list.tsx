@@ -11,6 +11,15 @@ const ACTIONS: Record<string, string> = {
   'joint-task-fitter-set': 'Assigned a fitter',
   'isolation-plan-set': 'Set the isolation plan',
   'isolation-point-added': 'Added a point to the register',
+  'locks-applied': 'Put locks on',
+  'lock-box-set-up': 'Set up the lock box',
+  'lock-removed': 'Took a lock off',
+  'lock-removed-absent': "Removed an absent person's lock (1910.147(e)(3))",
+  'locks-handed-over': 'Took over locks at a shift change',
+  'isolation-verified': 'Verified zero energy',
+  'joint-step-recorded': 'Recorded a joint step',
+  'dry-fit-refused': 'Dry fit outside the socket window (retry)',
+  'joint-redo': 'Cut a joint out for redo',
 };
 
 const FIELDS: Record<string, string> = {
@@ -18,6 +27,9 @@ const FIELDS: Record<string, string> = {
   windowStart: 'window start', windowEnd: 'window end', forecastLowF: 'forecast low (°F)', forecastHighRh: 'forecast high humidity (%)',
   testPressurePsi: 'raised test pressure (psi)', componentRatingPsi: 'weakest component (psi)', lateReason: 'late because', reason: 'reason',
   jointTasks: 'joints', line: 'line', fittingKind: 'fitting', size: 'size', reducingSize: 'reducing size', isolationPlan: 'isolation plan',
+  jointTask: 'joint', step: 'step', lockNumber: 'lock', on: 'on', owner: 'owner', removedBy: 'removed by', from: 'from', to: 'to', person: 'person', locks: 'locks',
+  lockBox: 'lock box', responsible: 'responsible', keysOf: 'keys of', verifiedBy: 'verified by', method: 'method', reading: 'reading', points: 'positions found',
+  replacedBy: 'replaced by', holdsVoided: 'holds made void', procedure: '(e)(3) record',
   fits: 'fits the window', testPsi: 'test pressure (psi)', earliestRelease: 'earliest release', neededWindowEnd: 'window end needed', lateStep: 'late step',
 };
 const INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;

@@ -1,5 +1,7 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
+import { Link } from 'react-router-dom';
+import { JOINT_STEPS } from '@shared/schemas/joint-steps';
 import { NOMINAL_SIZES, parseNominalSize } from '@shared/trade';
 import { FITTING_KINDS, FITTING_KIND_LABELS, REDUCING_FITTINGS, type FittingKind, type JointTaskDto } from '@shared/schemas/joint-tasks';
 import type { LineDto } from '@shared/schemas/lines';
@@ -29,6 +31,7 @@ export function JointTasksCard({ orderId, lines, tasks, mayEdit }: { orderId: st
                 <th scope="col" className="py-2 pr-3">Fitting</th>
                 <th scope="col" className="py-2 pr-3 text-right">Size</th>
                 <th scope="col" className="py-2 pr-3">Fitter</th>
+                {!mayEdit && <th scope="col" className="py-2 pr-3">Steps</th>}
                 {mayEdit && <th scope="col" className="py-2"><span className="sr-only">Remove</span></th>}
               </tr>
             </thead>
@@ -56,6 +59,14 @@ export function JointTasksCard({ orderId, lines, tasks, mayEdit }: { orderId: st
                       j.fitter?.name ?? <span className="text-ink-faint">not assigned</span>
                     )}
                   </td>
+                  {!mayEdit && (
+                    <td className="py-1 pr-3">
+                      <Link to={`/joints/${j.id}`} className="inline-flex min-h-11 items-center font-medium text-tide hover:underline">
+                        {j.redone ? 'cut out for redo' : `${j.stepsDone} of ${JOINT_STEPS.length}`}
+                        <span className="sr-only"> — open joint {j.label}</span>
+                      </Link>
+                    </td>
+                  )}
                   {mayEdit && (
                     <td className="py-1 text-right">
                       <Button variant="ghost" aria-label={`Remove joint ${j.label}`} disabled={remove.isPending} onClick={() => remove.mutate(j.id)}>Remove</Button>
