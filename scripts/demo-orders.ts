@@ -12,6 +12,12 @@ import { AuditEntry } from '@server/db/models/audit-entry';
 import { Line } from '@server/db/models/line';
 import { Person } from '@server/db/models/person';
 import { WorkOrder } from '@server/db/models/work-order';
+import { JointTask } from '@server/db/models/joint-task';
+import { sequelize } from '@server/db/sequelize';
+import { recordStep } from '@server/services/joints/steps';
+import { applyLocks } from '@server/services/lockout/locks';
+import { verifyIsolation } from '@server/services/lockout/verification';
+import { socketMarks } from '@shared/trade';
 import { recordAudit } from '@server/services/audit-service';
 import { effectiveRoles } from '@server/services/people-service';
 import { getIsolationPlan, setIsolationPlan } from '@server/services/work-orders/isolation-plan';
@@ -29,14 +35,14 @@ interface DemoOrder {
   kind: WorkOrderKind;
   priority: Priority;
   scope: string;
-  /** The window: days from the day of loading, the hour it starts (UTC) and its length; null: not booked yet. */
-  window: { day: number; hour: number; hours: number } | null;
+  /** The window: days from the day of loading, the hour it starts (UTC) and its length (with `fromLoad`, the hour counts from the loading hour); null: not booked yet. */
+  window: { day: number; hour: number; hours: number; fromLoad?: boolean } | null;
   forecast: { lowF: number; highRh: number };
   joints: { fitting: FittingKind; count: number; reducingSize?: string }[];
   /** The username of the fitter the joints go to. */
   fitter?: 'fitter' | 'fitter2';
   /** Where the order is left. */
-  state: Extract<WorkOrderState, 'draft' | 'planned' | 'cancelled'>;
+  state: Extract<WorkOrderState, 'draft' | 'planned' | 'in-work' | 'cancelled'>;
   lateReason?: string;
   cancelReason?: string;
 }
@@ -80,6 +86,14 @@ export const DEMO_ORDERS: DemoOrder[] = [
     joints: [{ fitting: 'reducing-bushing', count: 1, reducingSize: '2' }, { fitting: 'elbow-90', count: 1 }],
   },
   {
+    // Under way when the plant is loaded: the fitter's locks on, zero energy verified by operations,
+    // the first joint prepared and dry-fitted; the shift view and the lock board show it at once.
+    line: '100-HY-002', kind: 'repair', priority: 'urgent', state: 'in-work', fitter: 'fitter',
+    scope: 'Weeping elbow on the hypochlorite transfer line at the pipe-rack riser: cut out the elbow and the coupling above it, make two new joints.',
+    window: { day: 0, hour: -2, hours: 40, fromLoad: true }, forecast: { lowF: 64, highRh: 55 },
+    joints: [{ fitting: 'elbow-90', count: 1 }, { fitting: 'coupling', count: 1 }],
+  },
+  {
     line: '500-AD-001', kind: 'repair', priority: 'soon', state: 'cancelled',
     scope: 'Drip reported on the acid drain line at the pit wall: replace the coupling there.',
     window: { day: 1, hour: 6, hours: 12 }, forecast: { lowF: 66, highRh: 60 },
@@ -104,12 +118,19 @@ async function demoPerson(username: string): Promise<Me> {
 /** `day` days after the day of `from` (UTC), at `hour`. */
 const at = (from: Date, day: number, hour: number) => new Date(Date.UTC(from.getUTCFullYear(), from.getUTCMonth(), from.getUTCDate() + day, hour)).toISOString();
 
+/** A window's start (plus `hours`): on its day at its hour, or with `fromLoad`, `hour` hours from the loading hour. */
+function windowAt(from: Date, w: NonNullable<DemoOrder['window']>, hours: number): string {
+  if (!w.fromLoad) return at(from, w.day, w.hour + hours);
+  const hour = 3_600_000;
+  return new Date(Math.floor(from.getTime() / hour) * hour + (w.hour + hours) * hour).toISOString();
+}
+
 async function makeOrder(spec: DemoOrder, line: Line, people: { planner: Me; requester: Me; fitters: Record<string, Me> }, from: Date): Promise<WorkOrder> {
   const { planner } = people;
   const order = await createOrder(planner, workOrderCreateSchema.parse({
     kind: spec.kind, priority: spec.priority, scope: spec.scope, requestedBy: people.requester.name, lineIds: [line.id],
-    windowStart: spec.window ? at(from, spec.window.day, spec.window.hour) : null,
-    windowEnd: spec.window ? at(from, spec.window.day, spec.window.hour + spec.window.hours) : null,
+    windowStart: spec.window ? windowAt(from, spec.window, 0) : null,
+    windowEnd: spec.window ? windowAt(from, spec.window, spec.window.hours) : null,
     forecastLowF: spec.forecast.lowF, forecastHighRh: spec.forecast.highRh,
   }));
   for (const j of spec.joints) {
@@ -129,7 +150,25 @@ async function makeOrder(spec: DemoOrder, line: Line, people: { planner: Me; req
   }));
   if (spec.state !== 'draft') await submitPlan(planner, order.id, spec.lateReason ? { lateReason: spec.lateReason } : {});
   if (spec.state === 'cancelled') await cancelOrder(planner, order.id, spec.cancelReason!);
+  if (spec.state === 'in-work') await startWork(order.id, line, people);
   return (await WorkOrder.findByPk(order.id))!;
+}
+
+/** The fitter locks every point, operations verifies zero energy, the fitter prepares and dry-fits the first joint. */
+async function startWork(orderId: string, line: Line, people: { requester: Me; fitters: Record<string, Me> }) {
+  const fitter = people.fitters.fitter!;
+  const { entries } = await getIsolationPlan(orderId);
+  await sequelize.transaction((t) => applyLocks(fitter, orderId, { locks: entries.map((e, i) => ({ entryId: e.id, lockNumber: `TL-${String(i + 1).padStart(2, '0')}` })) }, t));
+  await sequelize.transaction((t) => verifyIsolation(people.requester, orderId, {
+    points: entries.map((e) => ({ entryId: e.id, positionFound: e.requiredPosition })),
+    method: 'Closed and locked the valves, opened the drain and the vent at the riser, watched the gauge five minutes.',
+    reading: '0 psi on the riser gauge; drain dry after the first litre.',
+  }, t));
+  const [first] = await JointTask.findAll({ where: { workOrderId: orderId }, order: [['number', 'ASC']], limit: 1 });
+  if (!first || !fitter.roles.includes('fitter')) return;
+  const depth = socketMarks({ nominalSize: line.nominalSize, schedule: Number(line.schedule) === 80 ? 80 : 40 });
+  await sequelize.transaction((t) => recordStep(fitter, first.id, { step: 'prep', values: { squareCut: true, deburred: true, chamfered: true, cleanDry: true } }, t));
+  if (depth.ok) await sequelize.transaction((t) => recordStep(fitter, first.id, { step: 'dry-fit', values: { insertion: Math.round(depth.socketDepthIn * 0.5 * 100) / 100, unit: 'in' } }, t));
 }
 
 export interface DemoOrdersResult {

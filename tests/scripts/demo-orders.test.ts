@@ -4,6 +4,8 @@ import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { JointTask } from '@server/db/models/joint-task';
 import { Line } from '@server/db/models/line';
 import { Person } from '@server/db/models/person';
+import { JointStepRecord } from '@server/db/models/joint-record';
+import { lockoutBoard } from '@server/services/lockout/board';
 import { WorkOrder } from '@server/db/models/work-order';
 import { closeQueues } from '@server/queues/connection';
 import { getOrder } from '@server/services/work-orders/order-dto';
@@ -40,7 +42,7 @@ describe('the demo plant\'s work orders', () => {
     const orders = await WorkOrder.findAll({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } } });
     expect(orders).toHaveLength(DEMO_ORDERS.length);
     for (const spec of DEMO_ORDERS) expect(orders.find((o) => o.scope === spec.scope)?.state, spec.scope).toBe(spec.state);
-    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'cancelled']));
+    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'in-work', 'cancelled']));
   });
 
   it('carry their joints and an isolation plan, and the late and cancelled ones their reasons', async () => {
@@ -61,11 +63,28 @@ describe('the demo plant\'s work orders', () => {
     expect(dto.overlaps).toContainEqual(expect.objectContaining({ orderId: repair!.id, on: 'isolation-point' }));
   });
 
+  it('show a fitter an order under way: their locks on, zero energy verified, the first joint prepared and dry-fitted', async () => {
+    const spec = DEMO_ORDERS.find((o) => o.state === 'in-work')!;
+    const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
+    const board = await lockoutBoard(order.id, order.createdById);
+    expect(board).toMatchObject({ isolated: true, missing: [] });
+    expect(board.points.every((p) => p.locks.some((l) => l.person.name === 'Tomas Lind'))).toBe(true);
+    const [j1] = await JointTask.findAll({ where: { workOrderId: order.id }, order: [['number', 'ASC']] });
+    const steps = await JointStepRecord.findAll({ where: { jointTaskId: j1!.id } });
+    expect(steps.map((s) => s.step).sort()).toEqual(['dry-fit', 'prep']);
+  });
+
   it('have their windows in the days after they were loaded', async () => {
     for (const spec of DEMO_ORDERS) {
       const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
       if (!spec.window) {
         expect(order.windowStart).toBeNull();
+        continue;
+      }
+      if (spec.window.fromLoad) {
+        // The order under way: its window is open at the moment of loading.
+        expect(order.windowStart!.getTime(), spec.scope).toBeLessThan(order.createdAt.getTime());
+        expect(order.windowEnd!.getTime(), spec.scope).toBeGreaterThan(order.createdAt.getTime());
         continue;
       }
       const daysAhead = (order.windowStart!.getTime() - order.createdAt.getTime()) / 86_400_000;
