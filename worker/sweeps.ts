@@ -3,6 +3,7 @@
 // due and is safe to run from several workers at once.
 
 import { recoverStalledImports } from '@server/services/line-imports/recovery';
+import { liftDueHolds } from '@server/services/holds/lift';
 
 export interface Sweep {
   name: string;
@@ -12,4 +13,5 @@ export interface Sweep {
 
 export const SWEEPS: readonly Sweep[] = [
   { name: 'line-import-recovery', run: () => recoverStalledImports().then((r) => ({ ...r })) },
+  { name: 'hold-lifts', run: () => liftDueHolds().then((r) => ({ ...r })) },
 ];

@@ -3,10 +3,12 @@ import { logger } from '@server/logger';
 import { newRedisConnection } from '@server/queues/connection';
 import { LINE_IMPORTS_QUEUE } from '@server/queues/line-imports';
 import { MAIL_QUEUE } from '@server/queues/mail';
+import { HOLDS_QUEUE } from '@server/queues/holds';
 import { SWEEPS_QUEUE, ensureSweepScheduled, scheduleSweep } from '@server/queues/sweeps';
 import { processSweep } from './processors/sweep';
 import { processImport } from './processors/line-import';
 import { processMail } from './processors/mail';
+import { processHoldLift } from './processors/hold';
 
 /** How often a worker checks that Redis still holds the sweep's schedule (a FLUSHALL drops it). */
 export const SWEEP_WATCH_MS = 15_000;
@@ -22,6 +24,7 @@ export function startWorkers(opts: { sweepWatchMs?: number } = {}) {
     new Worker(LINE_IMPORTS_QUEUE, processImport, { connection, concurrency: 1 }),
     new Worker(MAIL_QUEUE, processMail, { connection, concurrency: 4 }),
     new Worker(SWEEPS_QUEUE, (job) => processSweep(job), { connection, concurrency: 1 }),
+    new Worker(HOLDS_QUEUE, processHoldLift, { connection, concurrency: 8 }),
   ];
   for (const w of workers) {
     w.on('failed', (job, err) => logger.error({ err, queue: w.name, jobId: job?.id }, 'job failed'));

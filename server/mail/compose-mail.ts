@@ -9,6 +9,7 @@ import type { OutgoingMail } from './send-mail';
 import { lineImportApplied, lineImportFailed } from './templates/line-import-outcome';
 import { latePlanMail } from './work-order-mail';
 import { absentLockMail } from './lockout-mail';
+import { holdLiftedMail, testReadyMail } from './hold-mail';
 
 type Composer = (recordId: string) => Promise<OutgoingMail | null>;
 
@@ -25,6 +26,8 @@ const COMPOSERS: Record<MailPurpose, Composer> = {
   'line-import-failed': importMail(lineImportFailed),
   'work-order-planned-late': latePlanMail,
   'lock-removed-absent': absentLockMail,
+  'hold-lifted': holdLiftedMail,
+  'test-ready': testReadyMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

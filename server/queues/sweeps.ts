@@ -8,7 +8,7 @@ import { queueFor } from './connection';
  */
 export const SWEEPS_QUEUE = 'sweeps';
 export const SWEEP = 'sweep';
-export const SWEEP_EVERY_MS = 60_000;
+export const SWEEP_EVERY_MS = 30_000;
 
 /** The sweep carries nothing: it reads what to do from PostgreSQL. */
 export const sweepJobSchema = z.object({});

@@ -8,6 +8,7 @@ import { Hold } from '@server/db/models/joint-record';
 import type { JointTask } from '@server/db/models/joint-task';
 import type { Line } from '@server/db/models/line';
 import type { WorkOrder } from '@server/db/models/work-order';
+import { scheduleLifts } from '@server/services/holds/lift';
 import { compute, loadFacts } from '@server/services/work-orders/order-facts';
 import { cureSchedule } from '@shared/trade';
 
@@ -52,5 +53,7 @@ export async function createJointHolds(
   const hold = (kind: 'set' | 'cure', minutes: number) => ({
     ...common, kind, status: 'running' as const, endsAt: new Date(at.getTime() + minutes * MINUTE), schedule: result.schedule, basis, source: result.source,
   });
-  return Hold.bulkCreate([hold('set', result.setMinutes), hold('cure', result.cureMinutes)], { transaction: t });
+  const made = await Hold.bulkCreate([hold('set', result.setMinutes), hold('cure', result.cureMinutes)], { transaction: t });
+  scheduleLifts(made, t);
+  return made;
 }

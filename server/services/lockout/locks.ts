@@ -80,6 +80,10 @@ export async function createLockBox(me: Me, orderId: string, body: LockBoxCreate
   if (p.box) throw AppError.conflict(`${order.number} already has lock box ${p.box.label}.`);
   const chosen = body.entryIds.map((id) => p.entries.find((e) => e.id === id));
   if (chosen.some((e) => !e)) throw AppError.badRequest(`Some of those points are not in ${order.number}'s isolation plan.`, { entryIds: ['not a point of this order'] });
+  const locked = chosen.filter((e) => p.locks.some((l) => l.isolationPlanEntryId === e!.id)).map((e) => e!.tag);
+  if (locked.length) {
+    throw AppError.conflict(`${locked.join(', ')} already carr${locked.length === 1 ? 'ies' : 'y'} personal locks; a point's key goes into the box before anyone locks the point. Have those locks removed first, or leave the point out of the box.`);
+  }
   const box = await LockBox.create({ workOrderId: order.id, label: body.label, responsiblePersonId: me.id }, { transaction: t });
   await IsolationPlanEntry.update({ lockBoxId: box.id }, { where: { id: { [Op.in]: body.entryIds } }, transaction: t });
   await audit(me, order, 'lock-box-set-up', { lockBox: box.label, responsible: me.name, keysOf: chosen.map((e) => e!.tag) }, t);
@@ -107,6 +111,9 @@ export async function removeLock(me: Me, lockId: string, body: LockRemoval, t: T
   if (!own) {
     if (!may(me, 'locks.removeAbsent')) {
       throw AppError.forbidden(`Only ${ownerName}, who applied lock ${lock.lockNumber}, may remove it (OSHA 29 CFR 1910.147(e)(3)). ${refusalFor('locks.removeAbsent', me.roles)}`);
+    }
+    if (body.absent && Date.parse(body.absent.contactAttemptedAt) > now().getTime() + 60_000) {
+      throw AppError.badRequest('The attempt to reach the person cannot be in the future.', { 'absent.contactAttemptedAt': ['in the future'] });
     }
     if (!body.absent) {
       throw new AppError(409, 'absent_procedure_needed',
