@@ -10,6 +10,7 @@ import { lineImportApplied, lineImportFailed } from './templates/line-import-out
 import { latePlanMail } from './work-order-mail';
 import { absentLockMail } from './lockout-mail';
 import { holdLiftedMail, testReadyMail } from './hold-mail';
+import { readyForReleaseMail } from './release-mail';
 
 type Composer = (recordId: string) => Promise<OutgoingMail | null>;
 
@@ -28,6 +29,7 @@ const COMPOSERS: Record<MailPurpose, Composer> = {
   'lock-removed-absent': absentLockMail,
   'hold-lifted': holdLiftedMail,
   'test-ready': testReadyMail,
+  'ready-for-release': readyForReleaseMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

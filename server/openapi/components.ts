@@ -17,6 +17,7 @@ import {
 } from '@shared/schemas/work-orders';
 import { jointSpecSchema } from '@shared/trade';
 import { holdSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
+import { pressureTestBodySchema, pressureTestSchema, releaseBlockerSchema, releaseBodySchema, releaseQueueSchema } from '@shared/schemas/release';
 import { handoverSchema, lockBoxCreateSchema, lockoutSchema, lockRemovalSchema, lockSchema, locksApplySchema, verificationSchema } from '@shared/schemas/lockout';
 
 /** Request bodies, described as the client sends them (zod's input: defaults may be left out). */
@@ -38,6 +39,8 @@ export const REQUEST_SCHEMAS: Record<string, z.ZodType> = {
   Verification: verificationSchema,
   StepRecord: stepRecordSchema,
   Redo: redoSchema,
+  PressureTestBody: pressureTestBodySchema,
+  ReleaseBody: releaseBodySchema,
 };
 
 /** Answers, described as the server sends them (zod's output). */
@@ -72,4 +75,7 @@ export const RESPONSE_SCHEMAS: Record<string, z.ZodType> = {
   Photo: photoSchema,
   JointDetail: jointDetailSchema,
   Shift: shiftSchema,
+  PressureTest: pressureTestSchema,
+  ReleaseBlocker: releaseBlockerSchema,
+  ReleaseQueue: releaseQueueSchema,
 };

@@ -76,6 +76,11 @@ const TABLE: Row[] = [
   { route: 'POST /api/joint-tasks/:id/redo', allow: 'joints.redo', sample: `/api/joint-tasks/${NO_ID}/redo`, body: {} },
   { route: 'POST /api/joint-tasks/:id/photos', allow: 'joints.record', sample: `/api/joint-tasks/${NO_ID}/photos`, body: {} }, // no picture: 400
   { route: 'GET /api/photos/:id', allow: 'workOrders.read', sample: `/api/photos/${NO_ID}` },
+  { route: 'GET /api/work-orders/:id/pressure-tests', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/pressure-tests` },
+  { route: 'POST /api/work-orders/:id/pressure-tests', allow: 'tests.witness', sample: `/api/work-orders/${NO_ID}/pressure-tests`, body: {} },
+  { route: 'GET /api/work-orders/:id/release-check', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/release-check` },
+  { route: 'POST /api/work-orders/:id/release', allow: 'lines.release', sample: `/api/work-orders/${NO_ID}/release`, body: {} },
+  { route: 'GET /api/release-queue', allow: 'workOrders.read' },
 ];
 
 /** The roles a row lets through, read from the permission table. */

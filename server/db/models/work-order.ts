@@ -23,6 +23,7 @@ export class WorkOrder extends Model<InferAttributes<WorkOrder>, InferCreationAt
   declare cancelReason: CreationOptional<string | null>;
   declare plannedAt: CreationOptional<Date | null>;
   declare cancelledAt: CreationOptional<Date | null>;
+  declare releasedAt: CreationOptional<Date | null>;
   /** The last joint task number given out (J1, J2 …); numbers are never reused. */
   declare lastJointNumber: CreationOptional<number>;
   declare createdById: string;
@@ -51,6 +52,7 @@ WorkOrder.init(
     cancelReason: { type: DataTypes.TEXT },
     plannedAt: { type: DataTypes.DATE },
     cancelledAt: { type: DataTypes.DATE },
+    releasedAt: { type: DataTypes.DATE },
     lastJointNumber: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
     createdById: { type: DataTypes.UUID, allowNull: false },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
