@@ -25,7 +25,7 @@ import { fitterRoutes } from '@server/routes/fitter-routes';
 import { lockRoutes, orderLockoutRoutes } from '@server/routes/lockout-routes';
 import { shiftRoutes } from '@server/routes/shift-routes';
 import { photoRoutes } from '@server/routes/photo-routes';
-import { orderReleaseRoutes, releaseQueueRoutes } from '@server/routes/release-routes';
+import { lineStatusRoutes, orderReleaseRoutes, releaseQueueRoutes } from '@server/routes/release-routes';
 
 const PgStore = connectPgSimple(session);
 
@@ -74,6 +74,7 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/plant-settings', plantSettingsRoutes);
   app.use('/api/work-orders', orderLockoutRoutes, orderReleaseRoutes, workOrderRoutes);
   app.use('/api/release-queue', releaseQueueRoutes);
+  app.use('/api/line-status', lineStatusRoutes);
   app.use('/api/locks', lockRoutes);
   app.use('/api/shift', shiftRoutes);
   app.use('/api/photos', photoRoutes);

@@ -9,6 +9,7 @@ import { listPressureTests, pressureTestDto } from '@server/services/release/tes
 import { recordPressureTest } from '@server/services/release/pressure-test';
 import { releaseOrder } from '@server/services/release/release';
 import { releaseQueue } from '@server/services/release/queue';
+import { lineStatusBoard } from '@server/services/release/status-board';
 import { pressureTestBodySchema, releaseBodySchema } from '@shared/schemas/release';
 import { workOrderIdParamsSchema as params } from '@shared/schemas/work-orders';
 
@@ -41,4 +42,11 @@ export const releaseQueueRoutes = Router();
 releaseQueueRoutes.use(requirePermission('workOrders.read'));
 releaseQueueRoutes.get('/', async (_req, res) => {
   res.json(await releaseQueue());
+});
+
+/** Every line out of service, why, and when it can come back. */
+export const lineStatusRoutes = Router();
+lineStatusRoutes.use(requirePermission('workOrders.read'));
+lineStatusRoutes.get('/', async (_req, res) => {
+  res.json(await lineStatusBoard());
 });

@@ -95,3 +95,19 @@ export const releaseQueueRowSchema = z.object({
 });
 export const releaseQueueSchema = z.object({ orders: z.array(releaseQueueRowSchema) });
 export type ReleaseQueueDto = z.infer<typeof releaseQueueSchema>;
+
+/** The line status board: every line out of service, why, and when it can come back. */
+export const lineStatusBoardSchema = z.object({
+  lines: z.array(z.object({
+    id: z.string(),
+    lineNumber: z.string(),
+    area: z.string(),
+    service: z.string(),
+    status: z.enum(['out-of-service', 'locked-out']),
+    /** The open orders holding it out, each with what still stands in the way. */
+    orders: z.array(releaseQueueRowSchema),
+    /** The latest hold end of those orders, by the clock; null when none runs. */
+    earliestBack: z.string().nullable(),
+  })),
+});
+export type LineStatusBoardDto = z.infer<typeof lineStatusBoardSchema>;

@@ -81,6 +81,7 @@ const TABLE: Row[] = [
   { route: 'GET /api/work-orders/:id/release-check', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/release-check` },
   { route: 'POST /api/work-orders/:id/release', allow: 'lines.release', sample: `/api/work-orders/${NO_ID}/release`, body: {} },
   { route: 'GET /api/release-queue', allow: 'workOrders.read' },
+  { route: 'GET /api/line-status', allow: 'workOrders.read' },
 ];
 
 /** The roles a row lets through, read from the permission table. */

@@ -65,7 +65,8 @@ export const GOOD_STEPS = {
   'dry-fit': { insertion: 0.75, unit: 'in' }, // 2" Sch 80: socket 1.500 in, window 0.500–1.000 in (ASTM D2467 via the engine)
   'depth-marks': { insertionMark: true, checkMark: true },
   primer: { standard: 'ASTM F656', lot: 'P-2291', softeningChecked: true },
-  cement: { standard: 'ASTM D2564', lot: 'C-7710', manufacturedOn: '2026-06-01', ambientTemperature: 70, temperatureUnit: 'F', relativeHumidity: 50 },
+  // made six months before the test runs, so the can is always in date
+  cement: { standard: 'ASTM D2564', lot: 'C-7710', manufacturedOn: new Date(Date.now() - 182 * 86_400_000).toISOString().slice(0, 10), ambientTemperature: 70, temperatureUnit: 'F', relativeHumidity: 50 },
   assembly: { assembledWet: true, joiningDeviceUsed: false, heldSeconds: 30 },
   wipe: { beadWiped: true },
 } as const;

@@ -1,7 +1,8 @@
 // The fitter's shift view: their joint tasks on open orders, grouped by order and line, each with
 // its next step and what blocks it (isolation, their own lock, a hold).
 
-import { Op } from 'sequelize';
+import { literal, Op } from 'sequelize';
+import { sequelize } from '@server/db/sequelize';
 import { JointTask } from '@server/db/models/joint-task';
 import { Line } from '@server/db/models/line';
 import { WorkOrder } from '@server/db/models/work-order';
@@ -16,11 +17,11 @@ import { blockersFor, jointRows, nextStepOf, toHoldDto } from './joint-view';
 const ON_SHIFT = ['planned', 'isolated', 'in-work', 'curing', 'testing'];
 
 export async function shiftOf(me: Me): Promise<ShiftDto> {
-  const tasks = await JointTask.findAll({ where: { fitterId: me.id }, order: [['number', 'ASC']] });
   const orders = await WorkOrder.findAll({
-    where: { id: { [Op.in]: [...new Set(tasks.map((j) => j.workOrderId))] }, state: { [Op.in]: ON_SHIFT } },
+    where: { state: { [Op.in]: ON_SHIFT }, id: { [Op.in]: literal(`(select work_order_id from joint_tasks where fitter_id = ${sequelize.escape(me.id)})`) } },
     order: [['windowStart', 'ASC'], ['number', 'ASC']],
   });
+  const tasks = await JointTask.findAll({ where: { fitterId: me.id, workOrderId: { [Op.in]: orders.map((o) => o.id) } }, order: [['number', 'ASC']] });
   const mine = tasks.filter((j) => orders.some((o) => o.id === j.workOrderId));
   const lines = new Map((await Line.findAll({ where: { id: { [Op.in]: [...new Set(mine.map((j) => j.lineId))] } } })).map((l) => [l.id, l]));
   const rows = await jointRows(mine.map((j) => j.id));

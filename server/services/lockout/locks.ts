@@ -6,10 +6,11 @@
 import { Op, type Transaction } from 'sequelize';
 import { now } from '@server/clock';
 import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
-import { Lock, LockBox } from '@server/db/models/lockout';
+import { IsolationVerification, Lock, LockBox } from '@server/db/models/lockout';
 import { Person } from '@server/db/models/person';
 import type { WorkOrder } from '@server/db/models/work-order';
 import { AppError } from '@server/errors';
+import { logger } from '@server/logger';
 import { enqueueMail } from '@server/queues/mail';
 import { recordAudit } from '@server/services/audit-service';
 import { AUDIT_ENTITY } from '@server/services/work-orders/order-dto';
@@ -122,14 +123,19 @@ export async function removeLock(me: Me, lockId: string, body: LockRemoval, t: T
   }
   const p = await readProtection(order.id, t);
   refuseGap(order, lock, p, ownerName);
-  await lock.update({ removedAt: now(), removedById: me.id, removal: own ? 'owner' : 'absent', absentRecord: own ? null : body.absent! }, { transaction: t });
+  const at = now();
+  await lock.update({ removedAt: at, removedById: me.id, removal: own ? 'owner' : 'absent', absentRecord: own ? null : body.absent! }, { transaction: t });
+  if (lastLockOnItsPlace(p, lock) && p.verification) {
+    // Protection lapsed on a point or the box (for the test): the verification no longer stands.
+    await IsolationVerification.update({ supersededAt: at }, { where: { id: p.verification.id }, transaction: t });
+  }
   const place = placeOf(lock, p.entries, p.box);
   await audit(me, order, own ? 'lock-removed' : 'lock-removed-absent', {
     lockNumber: lock.lockNumber, on: place, owner: ownerName, removedBy: me.name, ...(own ? {} : { procedure: body.absent }),
   }, t);
   if (!own) {
     // The owner hears of it by mail; queued after the commit so a rolled-back removal sends nothing.
-    t.afterCommit(() => enqueueMail({ purpose: 'lock-removed-absent', recordId: lock.id }).catch(() => undefined));
+    t.afterCommit(() => void enqueueMail({ purpose: 'lock-removed-absent', recordId: lock.id }).catch((err) => logger.error({ err, lockId: lock.id }, 'could not queue the mail to the lock\'s owner')));
   }
   return order.id;
 }
