@@ -25,6 +25,7 @@ import { fitterRoutes } from '@server/routes/fitter-routes';
 import { lockRoutes, orderLockoutRoutes } from '@server/routes/lockout-routes';
 import { shiftRoutes } from '@server/routes/shift-routes';
 import { photoRoutes } from '@server/routes/photo-routes';
+import { holdRoutes } from '@server/routes/hold-routes';
 import { lineStatusRoutes, orderReleaseRoutes, releaseQueueRoutes } from '@server/routes/release-routes';
 
 const PgStore = connectPgSimple(session);
@@ -75,6 +76,7 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/work-orders', orderLockoutRoutes, orderReleaseRoutes, workOrderRoutes);
   app.use('/api/release-queue', releaseQueueRoutes);
   app.use('/api/line-status', lineStatusRoutes);
+  app.use('/api/holds', holdRoutes);
   app.use('/api/locks', lockRoutes);
   app.use('/api/shift', shiftRoutes);
   app.use('/api/photos', photoRoutes);

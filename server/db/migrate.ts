@@ -12,12 +12,13 @@ import * as workOrders from '@server/db/migrations/20261206000100-work-orders';
 import * as workOrderWindowIndex from '@server/db/migrations/20261206000200-work-order-window-index';
 import * as lockoutAndJointSteps from '@server/db/migrations/20261207000100-lockout-and-joint-steps';
 import * as pressureTestsAndRelease from '@server/db/migrations/20261208000100-pressure-tests-and-release';
+import * as holdEngineeringEntry from '@server/db/migrations/20261208000200-hold-engineering-entry';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
   lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex, lockoutAndJointSteps,
-  pressureTestsAndRelease,
+  pressureTestsAndRelease, holdEngineeringEntry,
 ];
 
 export function migrator() {

@@ -16,7 +16,7 @@ import {
   workOrderUpdateSchema,
 } from '@shared/schemas/work-orders';
 import { jointSpecSchema } from '@shared/trade';
-import { holdSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
+import { engineeringEntrySchema, holdSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
 import { pressureTestBodySchema, pressureTestSchema, releaseBlockerSchema, releaseBodySchema, releaseQueueSchema } from '@shared/schemas/release';
 import { handoverSchema, lockBoxCreateSchema, lockoutSchema, lockRemovalSchema, lockSchema, locksApplySchema, verificationSchema } from '@shared/schemas/lockout';
 
@@ -40,6 +40,7 @@ export const REQUEST_SCHEMAS: Record<string, z.ZodType> = {
   StepRecord: stepRecordSchema,
   Redo: redoSchema,
   PressureTestBody: pressureTestBodySchema,
+  EngineeringEntry: engineeringEntrySchema,
   ReleaseBody: releaseBodySchema,
 };
 

@@ -18,7 +18,7 @@ import {
   workOrderSchema, workOrderUpdateSchema,
 } from '@shared/schemas/work-orders';
 import { jointSpecSchema } from '@shared/trade';
-import { jointDetailSchema, photoIdParamsSchema, photoSchema, photoUploadFieldsSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
+import { engineeringEntrySchema, holdIdParamsSchema, jointDetailSchema, photoIdParamsSchema, photoSchema, photoUploadFieldsSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
 import { lineStatusBoardSchema, pressureTestBodySchema, pressureTestSchema, releaseBlockerSchema, releaseBodySchema, releaseQueueSchema } from '@shared/schemas/release';
 import { handoverSchema, lockBoxCreateSchema, lockIdParamsSchema, lockRemovalSchema, locksApplySchema, lockoutSchema, verificationSchema } from '@shared/schemas/lockout';
 import * as S from './route-schemas';
@@ -109,6 +109,7 @@ export const ROUTE_DOCS: RouteDoc[] = [
   { route: 'GET /api/work-orders/:id/release-check', tag: 'release', allow: 'workOrders.read', summary: 'Whether the order\'s lines may go back into service now, with every reason they may not', params: id, ok: { status: 200, description: 'Ready, or the reasons', schema: z.object({ ready: z.boolean(), blockers: z.array(releaseBlockerSchema) }) } },
   { route: 'POST /api/work-orders/:id/release', tag: 'release', allow: 'lines.release', summary: 'Sign the release checklist: the lines go back into service, the lockout closes', description: 'One transaction holding the order\'s row lock: of two releases racing, exactly one succeeds.', params: id, body: releaseBodySchema, ok: { status: 201, description: 'The order released', schema: z.object({ id: z.string(), number: z.string(), state: z.string(), releasedAt: z.string().nullable() }) }, errors: { 409: 'Refused, with every reason in `details.reasons`: a lock on, a hold active by the clock, no passed test, or not ready.' } },
   { route: 'GET /api/release-queue', tag: 'release', allow: 'workOrders.read', summary: 'Orders whose lines are out, ready to release first, each with every reason it is blocked', ok: { status: 200, description: 'The queue', schema: releaseQueueSchema } },
+  { route: 'POST /api/holds/:id/engineering', tag: 'release', allow: 'holds.engineeringEntry', summary: 'Enter an engineering set and cure time, with a reason, for a joint whose holds the published tables refused', description: IDEMPOTENT, params: holdIdParamsSchema, body: engineeringEntrySchema, ok: { status: 200, description: 'The joint, its holds running', schema: jointDetailSchema }, errors: { 409: 'The joint has no hold waiting for an engineering entry.', 422: REUSED } },
   { route: 'GET /api/line-status', tag: 'release', allow: 'workOrders.read', summary: 'Every line out of service, the open orders holding it out with their reasons, and the latest hold end', ok: { status: 200, description: 'The board', schema: lineStatusBoardSchema } },
   { route: 'GET /api/photos/:id', tag: 'shift', allow: 'workOrders.read', summary: 'A joint photo', params: photoIdParamsSchema, ok: { status: 200, description: 'The picture', contentType: 'image/jpeg' } },
 ];

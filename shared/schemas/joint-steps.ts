@@ -79,6 +79,15 @@ export const stepRecordSchema = z.discriminatedUnion('step', [
 ]);
 export type StepRecord = z.infer<typeof stepRecordSchema>;
 
+/** A supervisor's engineering cure time for a hold the engine refused, with a written reason. */
+export const engineeringEntrySchema = z.object({
+  setMinutes: z.number().int().min(1).max(60 * 24 * 30),
+  cureMinutes: z.number().int().min(1).max(60 * 24 * 60),
+  reason: text(2000),
+}).refine((b) => b.cureMinutes >= b.setMinutes, { path: ['cureMinutes'], message: 'the cure lasts at least as long as the set' });
+export type EngineeringEntry = z.infer<typeof engineeringEntrySchema>;
+export const holdIdParamsSchema = z.object({ id: z.uuid({ message: 'not a hold id' }) });
+
 export const redoSchema = z.object({ reason: text(1000) });
 export type Redo = z.infer<typeof redoSchema>;
 
@@ -113,6 +122,8 @@ export const holdSchema = z.object({
   basis: z.string(),
   source: z.string().nullable(),
   voidReason: z.string().nullable(),
+  /** Set where a supervisor entered the cure time because the engine refused: every record says so. */
+  engineering: z.object({ by: z.object({ id: z.string(), name: z.string() }), reason: z.string(), minutes: z.number() }).nullable(),
 });
 export type HoldDto = z.infer<typeof holdSchema>;
 

@@ -19,7 +19,7 @@ import {
 } from '../helpers/lockout';
 import { plantForWorkOrders } from '../helpers/work-orders';
 
-const users = useTestApp({ signIn: ['planner', 'fitter', 'fitter2', 'operations'], before: plantForWorkOrders });
+const users = useTestApp({ signIn: ['planner', 'fitter', 'fitter2', 'operations', 'supervisor'], before: plantForWorkOrders });
 
 const TOMAS = 'Tomas Lind';
 let fitterId = '';
@@ -267,6 +267,31 @@ describe('the assembly', () => {
     ]);
     const rows = await Hold.findAll({ where: { jointTaskId: j } });
     expect(rows.map((h) => [h.status, h.endsAt])).toEqual([['awaiting-engineering', null], ['awaiting-engineering', null]]);
+  });
+
+  it('a supervisor enters an engineering cure time with a reason: the holds run from the assembly, and every record says so', async () => {
+    const { jointIds, lines, order } = await isolatedOrder(users, { word: 'ENG', line: { designPressurePsi: 0 } });
+    await Line.update({ material: 'ABS' }, { where: { id: lines[0]!.id } });
+    const j = jointIds[0]!;
+    const abs = { primer: withValues('primer', { standard: 'none' }), cement: withValues('cement', { standard: 'ASTM D2235' }) };
+    for (const step of ['prep', 'dry-fit', 'depth-marks', 'primer', 'cement', 'assembly'] as const) {
+      expect((await recordStep(users.fitter, j, step, step === 'primer' || step === 'cement' ? abs[step] : GOOD_STEPS[step])).status).toBe(201);
+    }
+    const [waiting] = await Hold.findAll({ where: { jointTaskId: j } });
+    const entry = { setMinutes: 45, cureMinutes: 1440, reason: 'ABS drain, no pressure: the cement maker\'s data sheet gives 24 h at 60–100 °F.' };
+    expect((await users.fitter.tablet(`/api/holds/${waiting!.id}/engineering`, entry)).status).toBe(403);
+    const res = await users.supervisor.tablet(`/api/holds/${waiting!.id}/engineering`, entry);
+    expect(res.status).toBe(200);
+    for (const h of res.body.holds) {
+      expect(h.status).toBe('running');
+      expect(Date.parse(h.endsAt) - Date.parse(h.startsAt)).toBe((h.kind === 'set' ? 45 : 1440) * 60_000);
+      expect(h.engineering).toEqual({ by: { id: expect.any(String), name: 'Rafe Adeyemi' }, reason: entry.reason, minutes: h.kind === 'set' ? 45 : 1440 });
+      expect(h.basis).toMatch(/^Engineering cure time entered by Rafe Adeyemi: ABS drain/);
+    }
+    const onOrder = (await users.planner.get(`/api/work-orders/${order.id}`)).body;
+    expect(onOrder.holds.every((h: { engineering: unknown }) => h.engineering !== null)).toBe(true);
+    expect(onOrder.history.some((e: { action: string }) => e.action === 'engineering-cure-time')).toBe(true);
+    expect((await users.supervisor.tablet(`/api/holds/${waiting!.id}/engineering`, entry)).status).toBe(409); // nothing waits any more
   });
 });
 

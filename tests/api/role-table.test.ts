@@ -82,6 +82,7 @@ const TABLE: Row[] = [
   { route: 'POST /api/work-orders/:id/release', allow: 'lines.release', sample: `/api/work-orders/${NO_ID}/release`, body: {} },
   { route: 'GET /api/release-queue', allow: 'workOrders.read' },
   { route: 'GET /api/line-status', allow: 'workOrders.read' },
+  { route: 'POST /api/holds/:id/engineering', allow: 'holds.engineeringEntry', sample: `/api/holds/${NO_ID}/engineering`, body: {} },
 ];
 
 /** The roles a row lets through, read from the permission table. */

@@ -65,6 +65,10 @@ export class Hold extends Model<InferAttributes<Hold>, InferCreationAttributes<H
   declare endedAt: CreationOptional<Date | null>;
   declare endedBy: CreationOptional<string | null>;
   declare voidReason: CreationOptional<string | null>;
+  /** A supervisor's engineering cure time, where the engine refused: who, why, how long. */
+  declare engineeringById: CreationOptional<string | null>;
+  declare engineeringReason: CreationOptional<string | null>;
+  declare engineeringMinutes: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -86,6 +90,9 @@ Hold.init(
     endedAt: { type: DataTypes.DATE },
     endedBy: { type: DataTypes.TEXT },
     voidReason: { type: DataTypes.TEXT },
+    engineeringById: { type: DataTypes.UUID },
+    engineeringReason: { type: DataTypes.TEXT },
+    engineeringMinutes: { type: DataTypes.INTEGER },
     createdAt: DataTypes.DATE,
   },
   { sequelize, tableName: 'holds', updatedAt: false },

@@ -24,11 +24,20 @@ export function nextStepOf(recorded: readonly JointStep[], redone: boolean): Joi
   return JOINT_STEPS.find((s) => !recorded.includes(s)) ?? null;
 }
 
-export function toHoldDto(h: Hold): HoldDto {
+export function toHoldDto(h: Hold, names: Names = new Map()): HoldDto {
   return {
     id: h.id, kind: h.kind, jointTaskId: h.jointTaskId, status: h.status, startsAt: h.startsAt.toISOString(), endsAt: h.endsAt?.toISOString() ?? null,
     temperatureF: h.temperatureF, relativeHumidity: h.relativeHumidity, pressurePsi: h.pressurePsi, schedule: h.schedule, basis: h.basis, source: h.source, voidReason: h.voidReason ?? null,
+    engineering: h.engineeringById && h.engineeringReason && h.engineeringMinutes
+      ? { by: ref(names, h.engineeringById), reason: h.engineeringReason, minutes: h.engineeringMinutes }
+      : null,
   };
+}
+
+/** Holds as the API shows them, with the names of the supervisors who entered engineering cure times. */
+export async function holdDtos(holds: Hold[], t?: Transaction): Promise<HoldDto[]> {
+  const names = await namesOf(holds.map((h) => h.engineeringById), t);
+  return holds.map((h) => toHoldDto(h, names));
 }
 
 const HOLD_WORDS = { set: 'do not handle the joint', cure: 'no pressure on the joint' } as const;
@@ -108,7 +117,7 @@ export async function jointDetail(taskId: string, personId: string, t?: Transact
   const protection = await readProtection(order.id, t);
   const rows = await jointRows([task.id], t);
   const steps = rows.steps.get(task.id) ?? [];
-  const holds = (rows.holds.get(task.id) ?? []).map(toHoldDto);
+  const holds = await holdDtos(rows.holds.get(task.id) ?? [], t);
   const photos = rows.photos.get(task.id) ?? [];
   const retries = rows.retries.get(task.id) ?? [];
   const replacedBy = rows.replacedBy.get(task.id) ?? null;

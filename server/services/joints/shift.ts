@@ -6,6 +6,7 @@ import { sequelize } from '@server/db/sequelize';
 import { JointTask } from '@server/db/models/joint-task';
 import { Line } from '@server/db/models/line';
 import { WorkOrder } from '@server/db/models/work-order';
+import { namesOf } from '@server/services/lockout/board';
 import { readProtection } from '@server/services/lockout/protection';
 import { jointLabel } from '@server/services/work-orders/order-facts';
 import { needsChemicalCaution } from '@shared/trade';
@@ -25,6 +26,7 @@ export async function shiftOf(me: Me): Promise<ShiftDto> {
   const mine = tasks.filter((j) => orders.some((o) => o.id === j.workOrderId));
   const lines = new Map((await Line.findAll({ where: { id: { [Op.in]: [...new Set(mine.map((j) => j.lineId))] } } })).map((l) => [l.id, l]));
   const rows = await jointRows(mine.map((j) => j.id));
+  const engineers = await namesOf([...rows.holds.values()].flat().map((h) => h.engineeringById));
   const out: ShiftDto['orders'] = [];
   for (const order of orders) {
     const protection = await readProtection(order.id);
@@ -47,7 +49,7 @@ export async function shiftOf(me: Me): Promise<ShiftDto> {
           joints: joints.map((j) => {
             const steps = (rows.steps.get(j.id) ?? []).map((s) => s.step);
             const redone = !!j.redoneAt;
-            const holds = (rows.holds.get(j.id) ?? []).map(toHoldDto);
+            const holds = (rows.holds.get(j.id) ?? []).map((h) => toHoldDto(h, engineers));
             const nextStep = nextStepOf(steps, redone);
             const replacedBy = rows.replacedBy.get(j.id);
             return {

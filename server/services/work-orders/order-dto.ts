@@ -7,7 +7,7 @@ import { Hold, JointStepRecord } from '@server/db/models/joint-record';
 import { Person } from '@server/db/models/person';
 import { overlapsOf } from '@server/db/queries/work-orders';
 import { toLineDto } from '@server/services/line-service';
-import { toHoldDto } from '@server/services/joints/joint-view';
+import { holdDtos } from '@server/services/joints/joint-view';
 import type { IsolationPlanEntryDto } from '@shared/schemas/isolation-plans';
 import type { JointTaskDto } from '@shared/schemas/joint-tasks';
 import type { WorkOrderDto } from '@shared/schemas/work-orders';
@@ -88,7 +88,7 @@ export async function toOrderDto(f: OrderFacts): Promise<WorkOrderDto> {
     ...compute(f),
     overlaps: overlaps.get(order.id) ?? [],
     history: past,
-    holds: holds.map(toHoldDto),
+    holds: await holdDtos(holds),
   };
 }
 
