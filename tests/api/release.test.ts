@@ -13,7 +13,7 @@ import { WorkOrder } from '@server/db/models/work-order';
 import { liftDueHolds } from '@server/services/holds/lift';
 import type { Browserless } from '../helpers/browserless';
 import { useTestApp } from '../helpers/app';
-import { isolatedOrder, lockEveryPoint, recordStep, recordStepsThrough, verificationOf } from '../helpers/lockout';
+import { isolatedOrder, jpegPicture, lockEveryPoint, recordStep, recordStepsThrough, uploadPhoto, verificationOf } from '../helpers/lockout';
 import { plantForWorkOrders } from '../helpers/work-orders';
 
 const users = useTestApp({ signIn: ['planner', 'fitter', 'operations', 'supervisor'], before: plantForWorkOrders });
@@ -109,6 +109,34 @@ describe('the way to release', () => {
     expect(await Release.findOne({ where: { workOrderId: order.id } })).toMatchObject({ checklist: CHECKLIST });
     const again = await release(users.operations, order.id);
     expect(again.status).toBe(409);
+  });
+
+  it('the planner closes a released order only once its record is complete, and the record prints as a PDF with a QR code per joint', async () => {
+    const { order, jointIds } = await curingOrder();
+    expect((await users.planner.get(`/api/work-orders/${order.id}/record.pdf`)).status).toBe(409); // not released yet
+    await cureEnds(order.id);
+    await removeMyLocks(users.fitter, order.id);
+    expect((await users.operations.tablet(`/api/work-orders/${order.id}/pressure-tests`, await testBody(order.id))).status).toBe(201);
+    expect((await release(users.operations, order.id)).status).toBe(201);
+
+    let res = await users.planner.post(`/api/work-orders/${order.id}/close`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.details.gaps).toEqual(['J1 has no photo of the depth marks or the finished joint.']);
+    for (const step of ['depth-marks', 'wipe'] as const) expect((await uploadPhoto(users.fitter, jointIds[0]!, step, await jpegPicture())).status).toBe(201);
+    expect((await users.planner.get(`/api/work-orders/${order.id}/record-gaps`)).body).toEqual({ gaps: [] });
+    expect((await users.fitter.post(`/api/work-orders/${order.id}/close`)).status).toBe(403);
+    res = await users.planner.post(`/api/work-orders/${order.id}/close`);
+    expect(res.status).toBe(200);
+    expect(res.body.state).toBe('closed');
+
+    const pdf = await users.planner.raw(`/api/work-orders/${order.id}/record.pdf`);
+    expect(pdf.status).toBe(200);
+    expect(pdf.headers.get('content-type')).toBe('application/pdf');
+    expect(pdf.headers.get('content-disposition')).toContain(`${order.number}-record.pdf`);
+    const bytes = Buffer.from(await pdf.arrayBuffer());
+    expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+    // the joint's QR code (an image and its transparency mask) and its two photos
+    expect(bytes.toString('latin1').match(/\/Subtype \/Image/g)?.length).toBe(4);
   });
 
   it('of two releases racing, exactly one succeeds', async () => {

@@ -82,6 +82,9 @@ const TABLE: Row[] = [
   { route: 'POST /api/work-orders/:id/release', allow: 'lines.release', sample: `/api/work-orders/${NO_ID}/release`, body: {} },
   { route: 'GET /api/release-queue', allow: 'workOrders.read' },
   { route: 'GET /api/line-status', allow: 'workOrders.read' },
+  { route: 'GET /api/work-orders/:id/record-gaps', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/record-gaps` },
+  { route: 'POST /api/work-orders/:id/close', allow: 'workOrders.close', sample: `/api/work-orders/${NO_ID}/close` },
+  { route: 'GET /api/work-orders/:id/record.pdf', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/record.pdf` },
   { route: 'POST /api/holds/:id/engineering', allow: 'holds.engineeringEntry', sample: `/api/holds/${NO_ID}/engineering`, body: {} },
 ];
 

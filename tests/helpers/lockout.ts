@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+import sharp from 'sharp';
 import type { Line } from '@server/db/models/line';
 import type { LockoutDto } from '@shared/schemas/lockout';
 import type { Browserless } from './browserless';
@@ -83,4 +85,18 @@ export async function recordStepsThrough(fitter: Browserless, jointId: string, l
     if (step === last) return res.body;
   }
   throw new Error(`no step ${last}`);
+}
+
+/** A plain picture as a camera would send it (JPEG), `width` × `height`. */
+export const jpegPicture = (width = 640, height = 480) =>
+  sharp({ create: { width, height, channels: 3, background: { r: 180, g: 90, b: 30 } } }).jpeg().toBuffer();
+
+/** Uploads a photo of `step` for the joint, as the tablet does (multipart, with an Idempotency-Key). */
+export async function uploadPhoto(who: Browserless, jointId: string, step: 'depth-marks' | 'wipe', content: Buffer, filename = 'joint.jpg') {
+  const form = new FormData();
+  form.append('step', step);
+  form.append('photo', new Blob([new Uint8Array(content)]), filename);
+  const res = await who.raw(`/api/joint-tasks/${jointId}/photos`, { method: 'POST', body: form, headers: { 'Idempotency-Key': randomUUID() } });
+  const text = await res.text();
+  return { status: res.status, body: text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : text };
 }
