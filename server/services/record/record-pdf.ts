@@ -25,16 +25,16 @@ import { DEFERENCE } from '@shared/trade';
 const require = createRequire(import.meta.url);
 const font = (subset: string, weight: number) => require.resolve(`@fontsource/inter-tight/files/inter-tight-${subset}-${weight}-normal.woff`);
 const FONTS = { regular: font('latin', 400), bold: font('latin', 700), regularExt: font('latin-ext', 400), boldExt: font('latin-ext', 700) };
-/** Characters the latin subset lacks but latin-ext has (ő, ł, č …); ≥ and ✓ are written as words. */
+/** Characters the latin subset lacks but latin-ext has (ő, ł, č …); ≥, ≤ and ✓ are written as words. */
 const NEEDS_EXT = /[\u0100-\u024F\u1E00-\u1EFF]/;
 
 type Doc = InstanceType<typeof PDFDocument>;
 const MARGIN = 48;
 
-function text(doc: Doc, s: string, opts: { bold?: boolean; size?: number; gap?: number; color?: string } = {}) {
+function text(doc: Doc, s: string, opts: { bold?: boolean; size?: number; gap?: number; color?: string; width?: number } = {}) {
   const ext = NEEDS_EXT.test(s);
   doc.font(opts.bold ? (ext ? 'boldExt' : 'bold') : ext ? 'regularExt' : 'regular').fontSize(opts.size ?? 10).fillColor(opts.color ?? '#1d2731');
-  doc.text(s.replace(/≥/g, 'at least ').replace(/✓/g, 'yes'), { width: doc.page.width - 2 * MARGIN });
+  doc.text(s.replace(/≥\s?/g, 'at least ').replace(/≤\s?/g, 'up to ').replace(/✓/g, 'yes'), { width: opts.width ?? doc.page.width - 2 * MARGIN });
   if (opts.gap) doc.moveDown(opts.gap);
 }
 
@@ -96,9 +96,10 @@ export async function orderRecordPdf(orderId: string): Promise<{ filename: strin
     heading(doc, `Joint ${j.label} — ${FITTING_KIND_LABELS[j.fittingKind]}, ${j.jointSize}" on ${j.lineNumber}`);
     const qr = await QRCode.toBuffer(`${config.origin}/joints/${j.id}`, { margin: 1, width: 160 });
     const top = doc.y;
+    const beside = doc.page.width - 2 * MARGIN - 84; // the text keeps clear of the QR code
     doc.image(qr, doc.page.width - MARGIN - 72, top, { width: 72 });
-    if (j.redoneAt) text(doc, `Cut out for redo at ${at(j.redoneAt)} by ${who(j.redoneById)}: ${j.redoReason}`, { color: '#a61f15' });
-    if (j.replacesTaskId) text(doc, `Replaces ${facts.joints.find((x) => x.id === j.replacesTaskId)?.label ?? 'a joint cut out'}.`);
+    if (j.redoneAt) text(doc, `Cut out for redo at ${at(j.redoneAt)} by ${who(j.redoneById)}: ${j.redoReason}`, { color: '#a61f15', width: beside });
+    if (j.replacesTaskId) text(doc, `Replaces ${facts.joints.find((x) => x.id === j.replacesTaskId)?.label ?? 'a joint cut out'}.`, { width: beside });
     for (const step of JOINT_STEPS) {
       const r = steps.find((s) => s.jointTaskId === j.id && s.step === step);
       const v = (r?.values ?? {}) as Record<string, unknown>;
@@ -106,11 +107,11 @@ export async function orderRecordPdf(orderId: string): Promise<{ filename: strin
         : step === 'cement' ? ` — ${String(v.standard)} lot ${String(v.lot)}, made ${String(v.manufacturedOn)}; ${String(v.temperatureF)} °F, ${String(v.relativeHumidity)} % RH`
         : step === 'dry-fit' ? ` — entered ${String(v.insertionIn)} in of a ${String(v.socketDepthIn)} in socket`
         : step === 'assembly' ? ` — held ${String(v.heldSeconds)} s${v.joiningDeviceUsed ? ', joining device used' : ''}` : '';
-      text(doc, r ? `${JOINT_STEP_LABELS[step]}: ${who(r.recordedById)}, ${at(r.recordedAt)}${detail}` : `${JOINT_STEP_LABELS[step]}: not recorded`);
+      text(doc, r ? `${JOINT_STEP_LABELS[step]}: ${who(r.recordedById)}, ${at(r.recordedAt)}${detail}` : `${JOINT_STEP_LABELS[step]}: not recorded`, { width: beside });
     }
     for (const h of holds.filter((x) => x.jointTaskId === j.id)) {
       const end = h.status === 'ended' ? `ended ${at(h.endedAt)} (${h.endedBy})` : h.status === 'void' ? `void: ${h.voidReason}` : h.status;
-      text(doc, `${h.kind === 'set' ? 'Set' : 'Cure'} hold ${at(h.startsAt)} to ${at(h.endsAt)} at ${h.temperatureF} °F, ${h.relativeHumidity} % RH, ${h.pressurePsi} psi: ${h.basis}; ${end}`, { size: 9, color: '#3d4a57' });
+      text(doc, `${h.kind === 'set' ? 'Set' : 'Cure'} hold ${at(h.startsAt)} to ${at(h.endsAt)} at ${h.temperatureF} °F, ${h.relativeHumidity} % RH, ${h.pressurePsi} psi: ${h.basis}; ${end}`, { size: 9, color: '#3d4a57', width: beside });
     }
     if (doc.y < top + 80) doc.y = top + 80;
     const mine = photos.filter((p) => p.jointTaskId === j.id);
