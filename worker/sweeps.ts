@@ -4,6 +4,7 @@
 
 import { recoverStalledImports } from '@server/services/line-imports/recovery';
 import { liftDueHolds } from '@server/services/holds/lift';
+import { watchWindows } from '@server/services/holds/watches';
 
 export interface Sweep {
   name: string;
@@ -14,4 +15,5 @@ export interface Sweep {
 export const SWEEPS: readonly Sweep[] = [
   { name: 'line-import-recovery', run: () => recoverStalledImports().then((r) => ({ ...r })) },
   { name: 'hold-lifts', run: () => liftDueHolds().then((r) => ({ ...r })) },
+  { name: 'window-watch', run: () => watchWindows().then((r) => ({ ...r })) },
 ];

@@ -9,7 +9,7 @@ import type { OutgoingMail } from './send-mail';
 import { lineImportApplied, lineImportFailed } from './templates/line-import-outcome';
 import { latePlanMail } from './work-order-mail';
 import { absentLockMail } from './lockout-mail';
-import { holdLiftedMail, testReadyMail } from './hold-mail';
+import { holdLiftedMail, testReadyMail, windowAtRiskMail } from './hold-mail';
 import { readyForReleaseMail } from './release-mail';
 
 type Composer = (recordId: string) => Promise<OutgoingMail | null>;
@@ -30,6 +30,7 @@ const COMPOSERS: Record<MailPurpose, Composer> = {
   'hold-lifted': holdLiftedMail,
   'test-ready': testReadyMail,
   'ready-for-release': readyForReleaseMail,
+  'window-at-risk': windowAtRiskMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

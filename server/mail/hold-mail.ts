@@ -13,7 +13,8 @@ import { compute, jointLabel, loadFacts, orderLines } from '@server/services/wor
 import { plantTime } from '@server/services/work-orders/plant-time';
 import type { Role } from '@shared/schemas/roles';
 import type { OutgoingMail } from './send-mail';
-import { holdLifted, testReady } from './templates/hold-mail';
+import { holdLifted, testReady, windowAtRisk } from './templates/hold-mail';
+import { AuditEntry } from '@server/db/models/audit-entry';
 
 /** The order's fitters and its planner, with addresses. */
 async function fittersAndPlanner(order: WorkOrder): Promise<string[]> {
@@ -52,5 +53,18 @@ export async function testReadyMail(orderId: string): Promise<OutgoingMail | nul
   const to = [...new Set([...(await holdersOf(['operations', 'supervisor'])), ...(await fittersAndPlanner(order))])];
   if (!to.length) return null;
   const content = testReady({ orderId: order.id, number: order.number, lines: facts.lines.map((l) => l.lineNumber), testPsi: testPressure.testPsi, holdMinutes: testPressure.holdMinutes }, config.origin);
+  return { to: to.join(', '), ...content };
+}
+
+/** Record id: the order's id. To its planner and everyone holding the operations role, from the watch's audit entry. */
+export async function windowAtRiskMail(orderId: string): Promise<OutgoingMail | null> {
+  const order = await WorkOrder.findByPk(orderId);
+  const entry = await AuditEntry.findOne({ where: { entity: 'work-order', entityId: orderId, action: 'window-at-risk' } });
+  const seen = entry?.after as { earliestRelease: string; windowEnd: string } | undefined;
+  if (!order || !seen) return null;
+  const [planner, operations, lines, plant] = await Promise.all([Person.findByPk(order.createdById), holdersOf(['operations']), orderLines(order.id), currentPlantSettings()]);
+  const to = [...new Set([...(planner?.email ? [planner.email] : []), ...operations])];
+  if (!to.length) return null;
+  const content = windowAtRisk({ orderId: order.id, number: order.number, lines: lines.map((l) => l.lineNumber), windowEnd: plantTime(seen.windowEnd, plant.timeZone), earliestRelease: plantTime(seen.earliestRelease, plant.timeZone) }, config.origin);
   return { to: to.join(', '), ...content };
 }

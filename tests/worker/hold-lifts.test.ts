@@ -9,12 +9,13 @@ import { WorkOrder } from '@server/db/models/work-order';
 import { closeQueues, redis } from '@server/queues/connection';
 import { holdJobId, holdsQueue, scheduleHoldLift } from '@server/queues/holds';
 import { liftHold } from '@server/services/holds/lift';
+import { watchWindows } from '@server/services/holds/watches';
 import { startWorkers } from '../../worker/workers';
 import { useTestApp } from '../helpers/app';
 import { waitFor } from '../helpers/import-csv';
 import { isolatedOrder, recordStepsThrough } from '../helpers/lockout';
 import { mailMentioning } from '../helpers/mail';
-import { plantForWorkOrders } from '../helpers/work-orders';
+import { plantForWorkOrders, windowOf } from '../helpers/work-orders';
 
 const users = useTestApp({ signIn: ['planner', 'fitter', 'operations'], before: plantForWorkOrders });
 let workers: ReturnType<typeof startWorkers> | null = null;
@@ -83,5 +84,23 @@ describe('lifting holds', () => {
     await waitFor('the sweep to lift both holds', () => Hold.findAll({ where: { id: [set.id, cure.id] } }), (hs) => hs.every((h) => h.status === 'ended'), 15_000);
     expect((await Hold.findByPk(cure.id))!.endedBy).toBe('sweep');
     expect((await WorkOrder.findByPk(order.id))!.state).toBe('testing');
+  });
+
+  it('an order whose earliest release moves past its window end alerts the planner and operations once', async () => {
+    const start = new Date(Date.now() - 3_600_000).toISOString();
+    const { order, jointIds } = await isolatedOrder(users, { joints: 1, over: windowOf(start, 2) });
+    await recordStepsThrough(users.fitter, jointIds[0]!, 'assembly'); // the cure runs past the window's end
+    const first = await watchWindows().then((r) => r.told).catch(() => []);
+    const second = await watchWindows();
+    // the sweep running beside this test may have told first; either way, once
+    const entries = await AuditEntry.findAll({ where: { entity: 'work-order', entityId: order.id, action: 'window-at-risk' } });
+    expect(entries).toHaveLength(1);
+    expect(second.told).not.toContain(order.number);
+    void first;
+    const mails = await waitFor('the window mail', () => mailMentioning(order.number), (m) => m.some((x) => x.subject.includes('will run past its window')), 10_000);
+    const risk = mails.filter((m) => m.subject.includes('will run past its window'));
+    expect(risk).toHaveLength(1);
+    expect(risk[0]!.to).toContain('ines.varga@marrowby.invalid');
+    expect(risk[0]!.to).toContain('maud.okafor@marrowby.invalid');
   });
 });

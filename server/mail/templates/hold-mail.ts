@@ -50,3 +50,23 @@ export function testReady(f: TestReadyFacts, origin: string) {
     html: htmlMail(subject, [{ p: intro }, { list: facts }, { link: { href, text: `Open ${f.number}` } }]),
   };
 }
+
+export interface WindowAtRiskFacts {
+  orderId: string;
+  number: string;
+  lines: string[];
+  windowEnd: string;
+  earliestRelease: string;
+}
+
+export function windowAtRisk(f: WindowAtRiskFacts, origin: string) {
+  const subject = `${f.number} (${f.lines.join(', ')}) will run past its window: release ${f.earliestRelease} at the earliest, window ends ${f.windowEnd}`;
+  const href = `${origin}/work-orders/${f.orderId}`;
+  const intro = `The holds of ${f.number} now run so long that its lines cannot be back in service before its window ends (${f.windowEnd}); the earliest release is ${f.earliestRelease}.`;
+  const next = 'Agree the longer outage with operations. The holds stand: no pressure before the cure ends, whatever the window says.';
+  return {
+    subject,
+    text: `${intro}\n\n${next}\n\nThe order: ${href}\n`,
+    html: htmlMail(subject, [{ p: intro }, { p: next }, { link: { href, text: `Open ${f.number}` } }]),
+  };
+}

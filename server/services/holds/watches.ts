@@ -1,0 +1,48 @@
+// The watch on windows: an order under way whose earliest release has moved past its window's end
+// (a long cure, an engineering entry, a redo) alerts the planner and operations — once per order,
+// remembered in the audit log so a restarted worker or a flushed Redis does not tell them twice.
+
+import { Op } from 'sequelize';
+import { now } from '@server/clock';
+import { sequelize } from '@server/db/sequelize';
+import { AuditEntry } from '@server/db/models/audit-entry';
+import { Hold } from '@server/db/models/joint-record';
+import { WorkOrder } from '@server/db/models/work-order';
+import { logger } from '@server/logger';
+import { enqueueMail } from '@server/queues/mail';
+import { recordAudit } from '@server/services/audit-service';
+import { currentPlantSettings } from '@server/services/plant-settings-service';
+import { AUDIT_ENTITY } from '@server/services/work-orders/order-dto';
+import { MIN_TEST_HOLD_MINUTES } from '@shared/trade';
+
+const MINUTE = 60_000;
+const WATCHED = ['in-work', 'curing', 'testing'];
+export const WINDOW_AT_RISK = 'window-at-risk';
+
+/** The earliest the order's lines can be back: the last running hold's end (or now), then the test and the release, in the plant's minutes. */
+export function earliestRelease(lastHoldEnd: Date | null, at: Date, minutes: { fillAndVentMinutes: number; releaseMinutes: number }): Date {
+  const from = Math.max(lastHoldEnd?.getTime() ?? 0, at.getTime());
+  return new Date(from + (minutes.fillAndVentMinutes + MIN_TEST_HOLD_MINUTES + minutes.releaseMinutes) * MINUTE);
+}
+
+export async function watchWindows(): Promise<{ told: string[] }> {
+  const at = now();
+  const plant = await currentPlantSettings();
+  const orders = await WorkOrder.findAll({ where: { state: { [Op.in]: WATCHED }, windowEnd: { [Op.not]: null } } });
+  const told: string[] = [];
+  for (const order of orders) {
+    const last = (await Hold.max('endsAt', { where: { workOrderId: order.id, status: 'running' } })) as Date | null;
+    const release = earliestRelease(last, at, plant.windowPlan);
+    if (release.getTime() <= order.windowEnd!.getTime()) continue;
+    const first = await sequelize.transaction(async (t) => {
+      await WorkOrder.findByPk(order.id, { transaction: t, lock: t.LOCK.UPDATE }); // two workers: one tells
+      if (await AuditEntry.findOne({ where: { entity: AUDIT_ENTITY, entityId: order.id, action: WINDOW_AT_RISK }, transaction: t })) return false;
+      await recordAudit({ actorId: null, action: WINDOW_AT_RISK, entity: AUDIT_ENTITY, entityId: order.id, after: { earliestRelease: release.toISOString(), windowEnd: order.windowEnd!.toISOString() } }, t);
+      return true;
+    });
+    if (!first) continue;
+    told.push(order.number);
+    await enqueueMail({ purpose: 'window-at-risk', recordId: order.id }).catch((err) => logger.error({ err, orderId: order.id }, 'could not queue the window-at-risk mail'));
+  }
+  return { told };
+}
