@@ -17,7 +17,14 @@ import { sequelize } from '@server/db/sequelize';
 import { recordStep } from '@server/services/joints/steps';
 import { applyLocks } from '@server/services/lockout/locks';
 import { verifyIsolation } from '@server/services/lockout/verification';
-import { socketMarks } from '@shared/trade';
+import { CEMENT_FOR_MATERIAL, crewAndTools, socketMarks } from '@shared/trade';
+import type { StepRecord } from '@shared/schemas/joint-steps';
+import { Hold } from '@server/db/models/joint-record';
+import { liftDueHolds } from '@server/services/holds/lift';
+import { lockoutBoard } from '@server/services/lockout/board';
+import { removeLock } from '@server/services/lockout/locks';
+import { recordPressureTest } from '@server/services/release/pressure-test';
+import { compute, loadFacts } from '@server/services/work-orders/order-facts';
 import { recordAudit } from '@server/services/audit-service';
 import { effectiveRoles } from '@server/services/people-service';
 import { getIsolationPlan, setIsolationPlan } from '@server/services/work-orders/isolation-plan';
@@ -42,7 +49,7 @@ interface DemoOrder {
   /** The username of the fitter the joints go to. */
   fitter?: 'fitter' | 'fitter2';
   /** Where the order is left. */
-  state: Extract<WorkOrderState, 'draft' | 'planned' | 'in-work' | 'cancelled'>;
+  state: Extract<WorkOrderState, 'draft' | 'planned' | 'in-work' | 'curing' | 'ready' | 'cancelled'>;
   lateReason?: string;
   cancelReason?: string;
 }
@@ -92,6 +99,20 @@ export const DEMO_ORDERS: DemoOrder[] = [
     scope: 'Weeping elbow on the hypochlorite transfer line at the pipe-rack riser: cut out the elbow and the coupling above it, make two new joints.',
     window: { day: 0, hour: -2, hours: 40, fromLoad: true }, forecast: { lowF: 64, highRh: 55 },
     joints: [{ fitting: 'elbow-90', count: 1 }, { fitting: 'coupling', count: 1 }],
+  },
+  {
+    // Curing: every joint made this morning, the cure holds counting down on the order and the shift view.
+    line: '400-RO-001', kind: 'repair', priority: 'soon', state: 'curing', fitter: 'fitter',
+    scope: 'Replace the cracked coupling and the elbow after it on the RO permeate header at the skid outlet.',
+    window: { day: 0, hour: -4, hours: 30, fromLoad: true }, forecast: { lowF: 66, highRh: 50 },
+    joints: [{ fitting: 'coupling', count: 1 }, { fitting: 'elbow-90', count: 1 }],
+  },
+  {
+    // Ready: made the day before, cured, locks off, the test passed; operations may release it.
+    line: '300-CW-001', kind: 'repair', priority: 'soon', state: 'ready', fitter: 'fitter',
+    scope: 'Replace the weeping coupling on the cooling-water supply at the tower basin outlet.',
+    window: { day: 0, hour: -26, hours: 40, fromLoad: true }, forecast: { lowF: 68, highRh: 50 },
+    joints: [{ fitting: 'coupling', count: 2 }],
   },
   {
     line: '500-AD-001', kind: 'repair', priority: 'soon', state: 'cancelled',
@@ -150,25 +171,61 @@ async function makeOrder(spec: DemoOrder, line: Line, people: { planner: Me; req
   }));
   if (spec.state !== 'draft') await submitPlan(planner, order.id, spec.lateReason ? { lateReason: spec.lateReason } : {});
   if (spec.state === 'cancelled') await cancelOrder(planner, order.id, spec.cancelReason!);
-  if (spec.state === 'in-work') await startWork(order.id, line, people);
+  if (spec.state === 'in-work' || spec.state === 'curing' || spec.state === 'ready') await workThrough(order.id, line, people, spec.state, from);
   return (await WorkOrder.findByPk(order.id))!;
 }
 
-/** The fitter locks every point, operations verifies zero energy, the fitter prepares and dry-fits the first joint. */
-async function startWork(orderId: string, line: Line, people: { requester: Me; fitters: Record<string, Me> }) {
+/**
+ * The fitter locks every point and operations verifies zero energy. Then, for an order in work, the
+ * first joint is prepared and dry-fitted; for one curing, every joint is made (its holds running);
+ * for one ready, the joints were made the day before: their holds are moved back to have run out,
+ * the sweep's lift ends them, the fitter takes the locks off and operations records a passed test.
+ */
+async function workThrough(orderId: string, line: Line, people: { requester: Me; fitters: Record<string, Me> }, until: 'in-work' | 'curing' | 'ready', from: Date) {
   const fitter = people.fitters.fitter!;
   const { entries } = await getIsolationPlan(orderId);
-  await sequelize.transaction((t) => applyLocks(fitter, orderId, { locks: entries.map((e, i) => ({ entryId: e.id, lockNumber: `TL-${String(i + 1).padStart(2, '0')}` })) }, t));
+  const prefix = line.lineNumber.replace(/\D/g, '').slice(0, 3);
+  await sequelize.transaction((t) => applyLocks(fitter, orderId, { locks: entries.map((e, i) => ({ entryId: e.id, lockNumber: `TL-${prefix}-${String(i + 1).padStart(2, '0')}` })) }, t));
   await sequelize.transaction((t) => verifyIsolation(people.requester, orderId, {
     points: entries.map((e) => ({ entryId: e.id, positionFound: e.requiredPosition })),
-    method: 'Closed and locked the valves, opened the drain and the vent at the riser, watched the gauge five minutes.',
-    reading: '0 psi on the riser gauge; drain dry after the first litre.',
+    method: 'Closed and locked the valves, opened the drain and the vent, watched the gauge five minutes.',
+    reading: '0 psi on the gauge; drain dry after the first litre.',
   }, t));
-  const [first] = await JointTask.findAll({ where: { workOrderId: orderId }, order: [['number', 'ASC']], limit: 1 });
-  if (!first || !fitter.roles.includes('fitter')) return;
+  const joints = await JointTask.findAll({ where: { workOrderId: orderId }, order: [['number', 'ASC']] });
+  if (!joints.length || !fitter.roles.includes('fitter')) return;
   const depth = socketMarks({ nominalSize: line.nominalSize, schedule: Number(line.schedule) === 80 ? 80 : 40 });
-  await sequelize.transaction((t) => recordStep(fitter, first.id, { step: 'prep', values: { squareCut: true, deburred: true, chamfered: true, cleanDry: true } }, t));
-  if (depth.ok) await sequelize.transaction((t) => recordStep(fitter, first.id, { step: 'dry-fit', values: { insertion: Math.round(depth.socketDepthIn * 0.5 * 100) / 100, unit: 'in' } }, t));
+  const material = line.material as keyof typeof CEMENT_FOR_MATERIAL;
+  const steps: StepRecord[] = [
+    { step: 'prep', values: { squareCut: true, deburred: true, chamfered: true, cleanDry: true } },
+    { step: 'dry-fit', values: { insertion: depth.ok ? Math.round(depth.socketDepthIn * 0.5 * 100) / 100 : 0.5, unit: 'in' } },
+    { step: 'depth-marks', values: { insertionMark: true, checkMark: true } },
+    { step: 'primer', values: { standard: material === 'ABS' ? 'none' : 'ASTM F656', lot: 'P-26-0412', softeningChecked: true } },
+    { step: 'cement', values: { standard: `ASTM ${CEMENT_FOR_MATERIAL[material]}`, lot: 'C-26-0388', manufacturedOn: new Date(from.getTime() - 120 * 86_400_000).toISOString().slice(0, 10), ambientTemperature: 68, temperatureUnit: 'F', relativeHumidity: 50 } },
+    { step: 'assembly', values: { assembledWet: true, joiningDeviceUsed: crewAndTools(line.nominalSize).ok && (crewAndTools(line.nominalSize) as { mechanicalJoiningDevice: boolean }).mechanicalJoiningDevice, heldSeconds: 120 } },
+    { step: 'wipe', values: { beadWiped: true } },
+  ];
+  const record = (jointId: string, step: StepRecord) => sequelize.transaction((t) => recordStep(fitter, jointId, step, t));
+  if (until === 'in-work') {
+    for (const step of steps.slice(0, 2)) await record(joints[0]!.id, step);
+    return;
+  }
+  for (const j of joints) for (const step of steps) await record(j.id, step);
+  if (until === 'curing') return;
+  // Made the day before: every hold moved back so it ran out an hour ago, then lifted as the sweep would.
+  for (const h of await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } })) {
+    const back = h.endsAt!.getTime() - (from.getTime() - 3_600_000);
+    await h.update({ startsAt: new Date(h.startsAt.getTime() - back), endsAt: new Date(h.endsAt!.getTime() - back) });
+  }
+  await liftDueHolds();
+  const board = await lockoutBoard(orderId, fitter.id);
+  for (const l of board.myLocks) await sequelize.transaction((t) => removeLock(fitter, l.id, {}, t));
+  const order = (await WorkOrder.findByPk(orderId))!;
+  const testPsi = compute(await loadFacts(orderId)).testPressure.testPsi ?? 0;
+  await sequelize.transaction((t) => recordPressureTest(people.requester, orderId, {
+    toolsClear: true, peopleClear: true, medium: 'water', testPressurePsi: testPsi, gauge: 'PI-T2, 0–400 psi, calibrated 2026-10',
+    startedAt: new Date(from.getTime() - 40 * 60_000).toISOString(), startReadingPsi: testPsi, endedAt: new Date(from.getTime() - 20 * 60_000).toISOString(), endReadingPsi: testPsi,
+    result: 'passed', leakingJointIds: [], pipingIdentified: `${line.lineNumber}, the repaired run between its isolation points (${order.number})`, examiner: 'Rafe Adeyemi, plant inspector',
+  }, t));
 }
 
 export interface DemoOrdersResult {

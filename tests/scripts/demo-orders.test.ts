@@ -42,7 +42,7 @@ describe('the demo plant\'s work orders', () => {
     const orders = await WorkOrder.findAll({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } } });
     expect(orders).toHaveLength(DEMO_ORDERS.length);
     for (const spec of DEMO_ORDERS) expect(orders.find((o) => o.scope === spec.scope)?.state, spec.scope).toBe(spec.state);
-    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'in-work', 'cancelled']));
+    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'in-work', 'curing', 'ready', 'cancelled']));
   });
 
   it('carry their joints and an isolation plan, and the late and cancelled ones their reasons', async () => {
