@@ -52,6 +52,20 @@ export function createApp(opts: AppOptions = {}) {
   app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
   app.use(['/api', '/auth'], noStore);
   app.use(['/auth/login', '/auth/callback'], signInLimit); // before the session: a refused start stores nothing
+
+  // The client's files are served before the session: an asset never reads or re-sets the session
+  // cookie, so the service worker's precache cannot race a sign-in with an older cookie.
+  const dist = path.resolve(config.clientDist);
+  const hasClient = existsSync(path.join(dist, 'index.html'));
+  if (hasClient) {
+    app.use(express.static(dist, {
+      index: false,
+      maxAge: '1h',
+      // the service worker and the page must be asked for again, or a new build is never seen
+      setHeaders: (res, file) => { if (/(?:^|[/\\])(?:sw\.js|workbox-[^/\\]*\.js|index\.html|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache'); },
+    }));
+    app.use('/assets', notFound); // a missing script or style is a 404, never the app's page
+  }
   app.use(
     session({
       name: 'lw.sid', // its own name: on loopback the sign-in fake's cookies share the host
@@ -86,12 +100,7 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/fitters', fitterRoutes);
   app.use('/api', notFound);
 
-  const dist = path.resolve(config.clientDist);
-  if (existsSync(path.join(dist, 'index.html'))) {
-    app.use(express.static(dist, { index: false, maxAge: '1h' }));
-    app.use('/assets', notFound); // a missing script or style is a 404, never the app's page
-    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: dist }));
-  }
+  if (hasClient) app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: dist, headers: { 'Cache-Control': 'no-cache' } }));
   app.use(notFound);
   app.use(errorHandler);
   return app;

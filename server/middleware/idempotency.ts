@@ -50,7 +50,7 @@ export async function idempotently(req: Request, res: Response, write: (t: Trans
     );
     if (claimed.length === 0) {
       const first = await IdempotencyKey.findOne({ where: { personId: me.id, key }, transaction: t });
-      if (!first || first.status === null) throw AppError.conflict('This write is still being recorded; try again in a moment.');
+      if (!first || first.status === null) throw new AppError(409, 'write_in_progress', 'This write is still being recorded; try again in a moment.');
       if (first.requestHash !== hash) {
         throw new AppError(422, 'idempotency_key_reused', `The ${IDEMPOTENCY_HEADER} was already used for a different write; each write needs its own key.`);
       }

@@ -1,12 +1,12 @@
 import { createBrowserRouter, redirect, type LoaderFunctionArgs, type ShouldRevalidateFunction } from 'react-router-dom';
-import { queryClient } from '@/lib/query-client';
-import { authQueries } from '@/lib/auth';
+import { signedInPerson } from '@/lib/offline-writes';
+import { may } from '@shared/permissions';
 import { AppShell } from '@/components/layouts/app-shell';
 import { RouteError } from '@/components/layouts/route-error';
 
-/** Every page behind sign-in: without a person, go to the sign-in page and come back after. */
+/** Every page behind sign-in: without a person, go to the sign-in page and come back after (offline: the person this tablet saw last). */
 async function requireMe({ request }: LoaderFunctionArgs) {
-  const me = await queryClient.ensureQueryData(authQueries.me());
+  const me = await signedInPerson();
   if (!me) {
     const url = new URL(request.url);
     throw redirect(`/sign-in?returnTo=${encodeURIComponent(url.pathname + url.search)}`);
@@ -19,7 +19,13 @@ const page = (load: () => Promise<{ default: React.ComponentType; loader?: (a: L
   return { Component: m.default, loader: m.loader, shouldRevalidate: m.shouldRevalidate };
 };
 
-export const router = createBrowserRouter([
+/** A fitter's home is their shift; everyone else starts at the line register (signed out: requireMe sends them to sign in). */
+async function home() {
+  const me = await signedInPerson();
+  return me ? redirect(may(me, 'joints.record') ? '/shift' : '/lines') : null;
+}
+
+const routes = () => createBrowserRouter([
   { path: '/sign-in', lazy: page(() => import('@/app/routes/sign-in')), errorElement: <RouteError /> },
   {
     path: '/',
@@ -31,7 +37,9 @@ export const router = createBrowserRouter([
         // A page that fails to load shows its error inside the shell, with the navigation kept.
         errorElement: <RouteError />,
         children: [
-          { index: true, loader: () => redirect('/lines') },
+          { index: true, loader: home },
+          { path: 'shift', lazy: page(() => import('@/app/routes/shift')) },
+          { path: 'joints/:id', lazy: page(() => import('@/app/routes/joint')) },
           { path: 'lines', lazy: page(() => import('@/app/routes/lines')) },
           { path: 'lines/:lineNumber', lazy: page(() => import('@/app/routes/line-detail')) },
           { path: 'work-orders', lazy: page(() => import('@/app/routes/work-orders')) },
@@ -39,6 +47,7 @@ export const router = createBrowserRouter([
           { path: 'work-orders/:id', lazy: page(() => import('@/app/routes/work-order-detail')) },
           { path: 'work-orders/:id/edit', lazy: page(() => import('@/app/routes/work-order-edit')) },
           { path: 'schedule', lazy: page(() => import('@/app/routes/schedule')) },
+          { path: 'release', lazy: page(() => import('@/app/routes/release')) },
           { path: 'imports/new', lazy: page(() => import('@/app/routes/import-new')) },
           { path: 'imports/:id', lazy: page(() => import('@/app/routes/import-detail')) },
           { path: 'calculator', lazy: page(() => import('@/app/routes/calculator')) },
@@ -50,3 +59,7 @@ export const router = createBrowserRouter([
     ],
   },
 ]);
+
+let router: ReturnType<typeof routes> | undefined;
+/** Made on first use (it starts loading the page at once), after the tablet's stored cache is restored. */
+export const appRouter = () => (router ??= routes());

@@ -12,13 +12,13 @@ export class ApiRequestError extends Error {
   }
 }
 
-async function send(method: string, path: string, body?: unknown): Promise<Response> {
+async function send(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Response> {
   const isForm = body instanceof FormData;
   try {
     return await fetch(path, {
       method,
       credentials: 'same-origin',
-      headers: body === undefined || isForm ? {} : { 'content-type': 'application/json' },
+      headers: body === undefined || isForm ? headers : { ...headers, 'content-type': 'application/json' },
       body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     });
   } catch {
@@ -34,8 +34,8 @@ async function refusal(res: Response): Promise<ApiRequestError> {
   return new ApiRequestError(res.status, err?.code ?? 'http_' + res.status, err?.message ?? `The server answered ${res.status}.`, err?.details);
 }
 
-async function request<T>(method: string, path: string, body?: unknown): Promise<T> {
-  const res = await send(method, path, body);
+async function request<T>(method: string, path: string, body?: unknown, headers?: Record<string, string>): Promise<T> {
+  const res = await send(method, path, body, headers);
   if (!res.ok) throw await refusal(res);
   const text = await res.text();
   return (text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : null) as T;
@@ -59,6 +59,13 @@ export const api = {
   upload: <T>(path: string, form: FormData) => request<T>('POST', path, form),
   download,
 };
+
+/**
+ * A POST the server may receive twice (a write from the shift tablet replayed after the network
+ * came back): the key lets it answer a replay with the first result. `body` is JSON, or FormData.
+ */
+export const sendWithKey = <T>(path: string, body: unknown, idempotencyKey: string) =>
+  request<T>('POST', path, body, { 'Idempotency-Key': idempotencyKey });
 
 /** Hands a fetched file to the browser as a download. */
 export function saveFile(blob: Blob, filename: string): void {

@@ -12,7 +12,7 @@ import { lineRow, testPrefix, toCsv } from '../helpers/import-csv';
 import { makeIsolationPoint, makeLines } from '../helpers/line-rows';
 import { plannableOrder, plantForWorkOrders, windowOf } from '../helpers/work-orders';
 
-type Username = 'planner' | 'admin';
+type Username = 'planner' | 'admin' | 'fitter' | 'operations';
 /** What a page needs that the test makes first. */
 interface Made {
   lineNumber: string;
@@ -21,6 +21,9 @@ interface Made {
   orderId: string;
   orderNumber: string;
   lateOrderId: string;
+  /** A planned order with a joint on the fitter's shift, and that joint. */
+  shiftOrderId: string;
+  jointId: string;
 }
 interface PageCase {
   name: string;
@@ -49,6 +52,9 @@ const PAGES: PageCase[] = [
   { name: 'a new work order', as: 'planner', path: () => '/work-orders/new', shows: 'Create the order' },
   { name: 'editing a work order', as: 'planner', path: (m) => `/work-orders/${m.orderId}/edit`, shows: 'Save the changes' },
   { name: 'the schedule', as: 'planner', path: () => '/schedule?week=2027-03-01', shows: 'Next week' },
+  { name: 'the fitter’s shift', as: 'fitter', path: () => '/shift', shows: 'Section not isolated yet' },
+  { name: 'a joint on the shift tablet', as: 'fitter', path: (m) => `/joints/${m.jointId}`, shows: 'Prepare the ends' },
+  { name: 'the release queue and line status board', as: 'operations', path: () => '/release', shows: 'Lines out of service' },
   { name: 'sign-in', as: null, path: () => '/sign-in', shows: 'Sign in with the plant directory' },
   { name: 'a page that does not exist', as: 'planner', path: () => '/no-such-page', shows: 'There is no page here' },
 ];
@@ -64,7 +70,7 @@ interface Violation {
   targets: string[];
 }
 
-const { users, browser } = useBrowserApp({ signIn: ['planner'], before: plantForWorkOrders });
+const { users, browser } = useBrowserApp({ signIn: ['planner', 'fitter'], before: plantForWorkOrders });
 const prefix = testPrefix('A11Y');
 let made: Made;
 const contexts = new Map<Username | null, BrowserContext>();
@@ -81,11 +87,17 @@ beforeAll(async () => {
   expect(upload.status).toBe(201);
   const order = await plannableOrder(users.planner, [line]);
   const late = await plannableOrder(users.planner, [line], { over: { ...windowOf('2027-03-08T06:00:00-06:00', 2), forecastLowF: 34 } });
-  made = { lineNumber: line.lineNumber, importId: upload.body.id, orderId: order.id, orderNumber: order.number, lateOrderId: late.id };
+  // On the fitter's shift: a planned order (a week on, so it overlaps neither) with a joint assigned to them.
+  const onShift = await plannableOrder(users.planner, [line], { over: windowOf('2027-03-15T06:00:00-05:00', 12) });
+  const fitter = await users.fitter.get('/api/me');
+  const jointId = onShift.jointTasks[0].id;
+  expect((await users.planner.put(`/api/joint-tasks/${jointId}/fitter`, { personId: fitter.body.id })).status).toBe(200);
+  expect((await users.planner.post(`/api/work-orders/${onShift.id}/plan`, {})).status).toBe(200);
+  made = { lineNumber: line.lineNumber, importId: upload.body.id, orderId: order.id, orderNumber: order.number, lateOrderId: late.id, shiftOrderId: onShift.id, jointId };
 });
 afterAll(async () => {
   if (made) await LineImport.destroy({ where: { id: made.importId } });
-  if (made) await WorkOrder.destroy({ where: { id: [made.orderId, made.lateOrderId] } }); // its joints and plan go with it
+  if (made) await WorkOrder.destroy({ where: { id: [made.orderId, made.lateOrderId, made.shiftOrderId] } }); // its joints and plan go with it
   await Line.destroy({ where: { lineNumber: { [Op.like]: `${prefix}-%` } } });
   for (const context of contexts.values()) await context.close();
 });

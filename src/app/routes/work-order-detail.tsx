@@ -16,11 +16,25 @@ import { WindowPlanCard, WindowPlanLine } from '@/features/work-orders/component
 import { MaterialsCard } from '@/features/work-orders/components/materials-card';
 import { TestPressureCard } from '@/features/work-orders/components/test-pressure-card';
 import { HistoryList } from '@/features/work-orders/components/history-list';
+import { HoldsCard } from '@/features/work-orders/components/holds-card';
+import { PressureTestCard } from '@/features/release/components/pressure-test-card';
+import { ReleaseCard } from '@/features/release/components/release-card';
+import { RecordCard } from '@/features/release/components/record-card';
 import { ChemicalCaution } from '@/features/work-orders/components/chemical-caution';
+import { lockoutQueries } from '@/features/lockout/api';
+import { showsLockBoard } from '@/features/lockout/board';
+import { LockBoardCard } from '@/features/lockout/components/lock-board-card';
+import { queryClient } from '@/lib/query-client';
 import { Card, PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 
-export const loader = ({ params }: LoaderFunctionArgs) => ensureOrShowRefusal(workOrderQueries.detail(params.id!));
+export async function loader({ params }: LoaderFunctionArgs) {
+  await ensureOrShowRefusal(workOrderQueries.detail(params.id!));
+  // The lock board loads beside the order, and never fails the page: its card shows its own error.
+  const order = queryClient.getQueryData(workOrderQueries.detail(params.id!).queryKey);
+  if (order && showsLockBoard(order.state)) await queryClient.prefetchQuery(lockoutQueries.board(order.id));
+  return null;
+}
 
 export default function WorkOrderPage() {
   const { id } = useParams() as { id: string };
@@ -62,6 +76,8 @@ export default function WorkOrderPage() {
       <div className="grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
         <div className="space-y-4">
           <Card title="Scope and lines"><OrderSummary order={order} /></Card>
+          {showsLockBoard(order.state) && <LockBoardCard orderId={order.id} />}
+          <HoldsCard holds={order.holds} tasks={order.jointTasks} />
           <WindowPlanCard plan={order.windowPlan} />
           <JointTasksCard orderId={order.id} lines={order.lines} tasks={order.jointTasks} mayEdit={mayEdit} />
           <IsolationPlanCard orderId={order.id} lines={order.lines} entries={order.isolationPlan} mayEdit={mayEdit} />
@@ -70,6 +86,9 @@ export default function WorkOrderPage() {
           <ChemicalCaution services={order.lines.map((l) => l.service)} />
           <MaterialsCard materials={order.materials} />
           <TestPressureCard orderId={order.id} version={order.version} test={order.testPressure} mayEdit={mayEdit} />
+          <PressureTestCard order={order} />
+          <ReleaseCard order={order} />
+          <RecordCard order={order} />
           <Card title="History"><HistoryList history={order.history} /></Card>
         </div>
       </div>

@@ -1,15 +1,18 @@
 import { useQuery } from '@tanstack/react-query';
 import { NavLink, Outlet } from 'react-router-dom';
 import { ButtonLink } from '@/components/ui/button';
+import { WaitingWrites } from '@/components/layouts/waiting-writes';
 import { authQueries, signOut } from '@/lib/auth';
 import { may, type Action } from '@shared/permissions';
 import { ROLE_LABELS } from '@shared/schemas/roles';
 
 /** A page with an action is offered to those the permission table lets do it; the rest to everyone signed in. */
 const NAV: { to: string; label: string; action?: Action }[] = [
+  { to: '/shift', label: 'My shift', action: 'joints.record' },
   { to: '/lines', label: 'Line register' },
   { to: '/work-orders', label: 'Work orders', action: 'workOrders.read' },
   { to: '/schedule', label: 'Schedule', action: 'workOrders.read' },
+  { to: '/release', label: 'Release', action: 'workOrders.read' },
   { to: '/imports/new', label: 'Import lines', action: 'lines.import' },
   { to: '/calculator', label: 'Joint calculator' },
   { to: '/admin/people', label: 'People & roles', action: 'people.manage' },
@@ -50,6 +53,7 @@ export function AppShell() {
               </ButtonLink>
             </span>
           )}
+          <WaitingWrites />
           {me && (
             <div className="flex items-center gap-3 text-sm">
               <span className="hidden text-right leading-tight md:block">

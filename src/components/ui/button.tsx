@@ -2,8 +2,8 @@ import type { ButtonHTMLAttributes } from 'react';
 import { Link, type LinkProps } from 'react-router-dom';
 
 type Variant = 'primary' | 'secondary' | 'danger' | 'ghost';
-/** `md` for most; `wide` for a page's single call to action (fills its column, larger type). */
-type Size = 'md' | 'wide';
+/** `md` for most; `lg` on the shift tablet (48 px, gloved hands); `wide` for a page's single call to action (fills its column, larger type). */
+type Size = 'md' | 'lg' | 'wide';
 
 // A disabled button fades to half-strength ink: it is not text to read, and must not look pressable.
 const STYLES: Record<Variant, string> = {
@@ -14,6 +14,7 @@ const STYLES: Record<Variant, string> = {
 };
 const SIZES: Record<Size, string> = {
   md: 'inline-flex min-h-11 text-sm',
+  lg: 'inline-flex min-h-12 text-base',
   wide: 'flex min-h-12 w-full text-lg',
 };
 
@@ -25,8 +26,8 @@ export function buttonClass(variant: Variant = 'primary', { size = 'md', classNa
   return `${SIZES[size]} items-center justify-center gap-2 rounded-lg px-4 py-2 font-semibold disabled:cursor-not-allowed ${STYLES[variant]} ${className}`.trim();
 }
 
-export function Button({ variant = 'primary', className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
-  return <button {...props} className={buttonClass(variant, { className })} />;
+export function Button({ variant = 'primary', size, className = '', ...props }: ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant; size?: Size }) {
+  return <button {...props} className={buttonClass(variant, { size, className })} />;
 }
 
 /** A link to another page of the app that looks like a button. */

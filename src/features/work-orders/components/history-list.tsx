@@ -20,6 +20,9 @@ const ACTIONS: Record<string, string> = {
   'joint-step-recorded': 'Recorded a joint step',
   'dry-fit-refused': 'Dry fit outside the socket window (retry)',
   'joint-redo': 'Cut a joint out for redo',
+  'pressure-test-passed': 'Recorded the hydrostatic test: passed',
+  'pressure-test-failed': 'Recorded the hydrostatic test: failed',
+  'order-released': 'Released the lines to service',
 };
 
 const FIELDS: Record<string, string> = {
@@ -30,6 +33,8 @@ const FIELDS: Record<string, string> = {
   jointTask: 'joint', step: 'step', lockNumber: 'lock', on: 'on', owner: 'owner', removedBy: 'removed by', from: 'from', to: 'to', person: 'person', locks: 'locks',
   lockBox: 'lock box', responsible: 'responsible', keysOf: 'keys of', verifiedBy: 'verified by', method: 'method', reading: 'reading', points: 'positions found',
   replacedBy: 'replaced by', holdsVoided: 'holds made void', procedure: '(e)(3) record',
+  medium: 'medium', readings: 'readings', holdMinutes: 'held (min)', witness: 'witness', examiner: 'examiner', redone: 'cut out for redo',
+  releasedBy: 'released by', checklist: 'checklist', notes: 'notes', linesInService: 'lines back in service',
   fits: 'fits the window', testPsi: 'test pressure (psi)', earliestRelease: 'earliest release', neededWindowEnd: 'window end needed', lateStep: 'late step',
 };
 const INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
