@@ -1,4 +1,8 @@
 import { Router } from 'express';
+import type { Transaction } from 'sequelize';
+import type { z } from 'zod';
+import type { Action } from '@shared/permissions';
+import type { Me } from '@shared/schemas/roles';
 import { requirePermission } from '@server/middleware/auth';
 import { jsonBody } from '@server/middleware/body';
 import { idempotently } from '@server/middleware/idempotency';
@@ -18,33 +22,20 @@ orderLockoutRoutes.get('/:id/lockout', requirePermission('workOrders.read'), val
   res.json(await lockoutBoard(params.id, res.locals.me.id));
 }));
 
-orderLockoutRoutes.post('/:id/locks', requirePermission('locks.apply'), jsonBody, validate({ params, body: locksApplySchema }, async ({ params, body }, req, res) => {
-  await idempotently(req, res, async (t) => {
-    await applyLocks(res.locals.me, params.id, body, t);
-    return { status: 201, body: await lockoutBoard(params.id, res.locals.me.id, t) };
-  });
-}));
+/** A lock event on the order: the permission, the body, the service in the write's transaction; answers the board. */
+function boardWrite<B extends z.ZodType>(path: string, action: Action, body: B, run: (me: Me, orderId: string, body: z.output<B>, t: Transaction) => Promise<void>) {
+  orderLockoutRoutes.post(path, requirePermission(action), jsonBody, validate({ params, body }, async ({ params, body: valid }, req, res) => {
+    await idempotently(req, res, async (t) => {
+      await run(res.locals.me, params.id, valid, t);
+      return { status: 201, body: await lockoutBoard(params.id, res.locals.me.id, t) };
+    });
+  }));
+}
 
-orderLockoutRoutes.post('/:id/lock-box', requirePermission('locks.apply'), jsonBody, validate({ params, body: lockBoxCreateSchema }, async ({ params, body }, req, res) => {
-  await idempotently(req, res, async (t) => {
-    await createLockBox(res.locals.me, params.id, body, t);
-    return { status: 201, body: await lockoutBoard(params.id, res.locals.me.id, t) };
-  });
-}));
-
-orderLockoutRoutes.post('/:id/handovers', requirePermission('locks.handover'), jsonBody, validate({ params, body: handoverSchema }, async ({ params, body }, req, res) => {
-  await idempotently(req, res, async (t) => {
-    await handOver(res.locals.me, params.id, body, t);
-    return { status: 201, body: await lockoutBoard(params.id, res.locals.me.id, t) };
-  });
-}));
-
-orderLockoutRoutes.post('/:id/verification', requirePermission('isolation.verify'), jsonBody, validate({ params, body: verificationSchema }, async ({ params, body }, req, res) => {
-  await idempotently(req, res, async (t) => {
-    await verifyIsolation(res.locals.me, params.id, body, t);
-    return { status: 201, body: await lockoutBoard(params.id, res.locals.me.id, t) };
-  });
-}));
+boardWrite('/:id/locks', 'locks.apply', locksApplySchema, applyLocks);
+boardWrite('/:id/lock-box', 'locks.apply', lockBoxCreateSchema, createLockBox);
+boardWrite('/:id/handovers', 'locks.handover', handoverSchema, handOver);
+boardWrite('/:id/verification', 'isolation.verify', verificationSchema, verifyIsolation);
 
 /** A lock at its own address: removal by its owner, or by a supervisor under 1910.147(e)(3). */
 export const lockRoutes = Router();

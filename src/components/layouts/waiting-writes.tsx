@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { usePopover } from '@/components/ui/use-popover';
 import { useFailedWrites, useOnline, useWaitingWrites } from '@/lib/offline-writes';
 import { FailedWriteList } from '@/components/ui/write-list';
 
@@ -10,21 +10,7 @@ export function WaitingWrites() {
   const online = useOnline();
   const { count, labels } = useWaitingWrites();
   const failed = useFailedWrites();
-  const [open, setOpen] = useState(false);
-  const root = useRef<HTMLDivElement>(null);
-  const panelId = useId();
-
-  useEffect(() => {
-    if (!open) return;
-    const outside = (e: PointerEvent) => root.current && !root.current.contains(e.target as Node) && setOpen(false);
-    const escape = (e: KeyboardEvent) => e.key === 'Escape' && setOpen(false);
-    document.addEventListener('pointerdown', outside);
-    document.addEventListener('keydown', escape);
-    return () => {
-      document.removeEventListener('pointerdown', outside);
-      document.removeEventListener('keydown', escape);
-    };
-  }, [open]);
+  const { open, setOpen, root, panelId } = usePopover();
 
   const words = [!online && 'Offline', count > 0 && `${count} waiting to send`, failed.length > 0 && `${failed.length} not recorded`].filter(Boolean).join(' · ');
   const showList = count > 0 || failed.length > 0;

@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState } from 'react';
+import { usePopover } from '@/components/ui/use-popover';
 
 export interface CheckOption {
   value: string;
@@ -10,21 +10,7 @@ export interface CheckOption {
  * (every row is 44 px high), unlike a native multiple select. Closes on Escape or a tap outside.
  */
 export function CheckMenu({ label, options, selected, onChange }: { label: string; options: CheckOption[]; selected: string[]; onChange: (next: string[]) => void }) {
-  const [open, setOpen] = useState(false);
-  const root = useRef<HTMLDivElement>(null);
-  const panelId = useId();
-
-  useEffect(() => {
-    if (!open) return;
-    const outside = (e: PointerEvent) => root.current && !root.current.contains(e.target as Node) && setOpen(false);
-    const escape = (e: KeyboardEvent) => e.key === 'Escape' && setOpen(false);
-    document.addEventListener('pointerdown', outside);
-    document.addEventListener('keydown', escape);
-    return () => {
-      document.removeEventListener('pointerdown', outside);
-      document.removeEventListener('keydown', escape);
-    };
-  }, [open]);
+  const { open, setOpen, root, panelId } = usePopover();
 
   const toggle = (value: string) => onChange(selected.includes(value) ? selected.filter((v) => v !== value) : [...selected, value]);
   const count = selected.length;
