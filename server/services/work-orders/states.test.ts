@@ -45,7 +45,7 @@ describe('the work-order states', () => {
 
   it('a step backwards or sideways says where the order can go from here', () => {
     expect(refusalOf('WO-1', 'curing', 'planned')).toBe(
-      'WO-1 is curing; it cannot become planned from here. From curing it goes to testing when the last cure hold ends; or cancelled when a supervisor cancels it once every lock is off.',
+      'WO-1 is curing; it cannot become planned from here. From curing it goes to testing when the last cure hold ends; or in work when a joint is cut out for redo; or cancelled when a supervisor cancels it once every lock is off.',
     );
     expect(refusalOf('WO-1', 'planned', 'planned')).toBe('WO-1 is already planned.');
     expect(refusalOf('WO-1', 'cancelled', 'draft')).toBe('WO-1 is cancelled; nothing more happens to a cancelled order.');
