@@ -13,12 +13,13 @@ import * as workOrderWindowIndex from '@server/db/migrations/20261206000200-work
 import * as lockoutAndJointSteps from '@server/db/migrations/20261207000100-lockout-and-joint-steps';
 import * as pressureTestsAndRelease from '@server/db/migrations/20261208000100-pressure-tests-and-release';
 import * as holdEngineeringEntry from '@server/db/migrations/20261208000200-hold-engineering-entry';
+import * as sentMails from '@server/db/migrations/20261208000300-sent-mails';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
   lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex, lockoutAndJointSteps,
-  pressureTestsAndRelease, holdEngineeringEntry,
+  pressureTestsAndRelease, holdEngineeringEntry, sentMails,
 ];
 
 export function migrator() {

@@ -44,9 +44,9 @@ export async function holdLiftedMail(holdId: string): Promise<OutgoingMail | nul
   return { to: [...new Set(to)].join(', '), ...content };
 }
 
-/** Record id: the order's id. To operations and supervisors (the witnesses), the order's fitters and its planner. */
-export async function testReadyMail(orderId: string): Promise<OutgoingMail | null> {
-  const order = await WorkOrder.findByPk(orderId);
+/** Record id: `<order id>.<version>` (the order as it became testing). To operations and supervisors (the witnesses), the order's fitters and its planner. */
+export async function testReadyMail(recordId: string): Promise<OutgoingMail | null> {
+  const order = await WorkOrder.findByPk(recordId.split('.')[0]!);
   if (!order) return null;
   const facts = await loadFacts(order.id);
   const { testPressure } = compute(facts);

@@ -54,7 +54,8 @@ export async function liftHold(holdId: string, by: LiftedBy): Promise<{ lifted: 
       after: { jointTask: task ? jointLabel(task.number) : null, hold: hold.kind, endedAt: at.toISOString(), due: hold.endsAt.toISOString(), by, ...(moved ? { state: 'testing' } : {}) },
     }, t);
     if (hold.kind === 'cure') t.afterCommit(() => void enqueueMail({ purpose: 'hold-lifted', recordId: hold.id }).catch((err) => logger.error({ err, holdId }, 'could not queue the hold mail')));
-    if (moved) t.afterCommit(() => void enqueueMail({ purpose: 'test-ready', recordId: order.id }).catch((err) => logger.error({ err, orderId: order.id }, 'could not queue the test-ready mail')));
+    // record id <order>.<version>: an order tested again after a failed test is told again
+    if (moved) t.afterCommit(() => void enqueueMail({ purpose: 'test-ready', recordId: `${order.id}.${order.version}` }).catch((err) => logger.error({ err, orderId: order.id }, 'could not queue the test-ready mail')));
     return { lifted: true, orderMoved: moved };
   });
   return result;
