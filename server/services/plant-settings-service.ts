@@ -1,3 +1,4 @@
+import type { Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
 import { PlantSetting } from '@server/db/models/plant-setting';
 import { Person } from '@server/db/models/person';
@@ -34,8 +35,9 @@ async function toDto(row: PlantSetting | null): Promise<PlantSettings> {
 /** A time zone as the runtime names it ("america/chicago" → "America/Chicago"). */
 const canonicalZone = (tz: string) => new Intl.DateTimeFormat('en', { timeZone: tz }).resolvedOptions().timeZone;
 
-export async function currentPlantSettings(): Promise<PlantSettings> {
-  return toDto(await PlantSetting.findByPk(SETTINGS_ID));
+/** The plant's settings; inside a transaction, read on its connection (a second one could wait on a full pool). */
+export async function currentPlantSettings(t?: Transaction): Promise<PlantSettings> {
+  return toDto(await PlantSetting.findByPk(SETTINGS_ID, { transaction: t }));
 }
 
 const minuteUtc = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;

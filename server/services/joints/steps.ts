@@ -140,7 +140,7 @@ export async function recordStep(me: Me, taskId: string, body: StepRecord, t: Tr
   if (body.step === 'assembly') {
     const cement = existing.find((s) => s.step === 'cement')!.values as { temperatureF: number; relativeHumidity: number };
     const conditions = await cureConditions(order, { temperatureF: cement.temperatureF, relativeHumidity: cement.relativeHumidity }, t);
-    const plant = await currentPlantSettings();
+    const plant = await currentPlantSettings(t);
     await createJointHolds({ order, task, line, jointSize, at, conditions, cureScheduleId: plant.cureScheduleId }, t);
     if (await everyJointAssembled(order.id, t)) state = moveTo({ number: order.number, state }, 'curing');
   }

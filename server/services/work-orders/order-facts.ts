@@ -51,7 +51,7 @@ export async function loadFacts(id: string, t?: Transaction): Promise<OrderFacts
   const lines = await orderLines(id, t);
   const tasks = await JointTask.findAll({ where: { workOrderId: id }, order: [['number', 'ASC']], transaction: t });
   const entries = await IsolationPlanEntry.findAll({ where: { workOrderId: id }, order: [['sortOrder', 'ASC']], transaction: t });
-  const plant = await currentPlantSettings();
+  const plant = await currentPlantSettings(t);
   const lineNumber = new Map(lines.map((l) => [l.id, l.lineNumber]));
   const fitterIds = [...new Set(tasks.map((j) => j.fitterId).filter((x): x is string => !!x))];
   const fitters = new Map((await Person.findAll({ where: { id: { [Op.in]: fitterIds } }, transaction: t })).map((p) => [p.id, p.name]));
