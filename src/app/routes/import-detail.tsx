@@ -73,7 +73,7 @@ export default function ImportDetailPage() {
         title={TITLES[imp.status]}
         subtitle={
           <>
-            <span className="font-medium text-ink">{imp.filename}</span> · {kindWord} file{imp.totalRows > 0 && ` · ${imp.totalRows} rows`} · uploaded{' '}
+            <span className="font-medium text-ink">{imp.filename}</span> · {kindWord} file{imp.totalRows > 0 && ` · ${imp.totalRows} ${imp.totalRows === 1 ? 'row' : 'rows'}`} · uploaded{' '}
             {formatDateTime(imp.createdAt)}
           </>
         }

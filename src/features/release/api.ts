@@ -52,8 +52,9 @@ function useReleaseWrite<TArgs, TResult>(fn: (args: TArgs) => Promise<TResult>) 
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: fn,
+    // Not awaited: the refetched order can unmount the form that asked, and its own onSuccess must still run.
     onSuccess: () =>
-      Promise.all([
+      void Promise.all([
         queryClient.invalidateQueries({ queryKey: releaseQueries.orders() }),
         queryClient.invalidateQueries({ queryKey: releaseQueries.queue().queryKey }),
         queryClient.invalidateQueries({ queryKey: releaseQueries.lineStatus().queryKey }),
