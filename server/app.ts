@@ -25,7 +25,7 @@ import { fitterRoutes } from '@server/routes/fitter-routes';
 import { lockRoutes, orderLockoutRoutes } from '@server/routes/lockout-routes';
 import { shiftRoutes } from '@server/routes/shift-routes';
 import { photoRoutes } from '@server/routes/photo-routes';
-import { holdRoutes } from '@server/routes/hold-routes';
+import { holdRoutes, orderTemperatureLogRoutes, temperatureLogRoutes } from '@server/routes/hold-routes';
 import { orderRecordRoutes } from '@server/routes/record-routes';
 import { lineStatusRoutes, orderReleaseRoutes, releaseQueueRoutes } from '@server/routes/release-routes';
 
@@ -88,7 +88,8 @@ export function createApp(opts: AppOptions = {}) {
   app.use('/api/line-imports', lineImportRoutes);
   app.use('/api/calc', calcRoutes);
   app.use('/api/plant-settings', plantSettingsRoutes);
-  app.use('/api/work-orders', orderLockoutRoutes, orderReleaseRoutes, orderRecordRoutes, workOrderRoutes);
+  app.use('/api/work-orders', orderLockoutRoutes, orderReleaseRoutes, orderRecordRoutes, orderTemperatureLogRoutes, workOrderRoutes);
+  app.use('/api/temperature-logs', temperatureLogRoutes);
   app.use('/api/release-queue', releaseQueueRoutes);
   app.use('/api/line-status', lineStatusRoutes);
   app.use('/api/holds', holdRoutes);

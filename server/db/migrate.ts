@@ -14,12 +14,13 @@ import * as lockoutAndJointSteps from '@server/db/migrations/20261207000100-lock
 import * as pressureTestsAndRelease from '@server/db/migrations/20261208000100-pressure-tests-and-release';
 import * as holdEngineeringEntry from '@server/db/migrations/20261208000200-hold-engineering-entry';
 import * as sentMails from '@server/db/migrations/20261208000300-sent-mails';
+import * as temperatureLogs from '@server/db/migrations/20261208000400-temperature-logs';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
   lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex, lockoutAndJointSteps,
-  pressureTestsAndRelease, holdEngineeringEntry, sentMails,
+  pressureTestsAndRelease, holdEngineeringEntry, sentMails, temperatureLogs,
 ];
 
 export function migrator() {

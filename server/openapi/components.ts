@@ -16,7 +16,7 @@ import {
   workOrderUpdateSchema,
 } from '@shared/schemas/work-orders';
 import { jointSpecSchema } from '@shared/trade';
-import { engineeringEntrySchema, holdSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
+import { engineeringEntrySchema, holdSchema, temperatureLogSchema, jointDetailSchema, photoSchema, redoSchema, shiftSchema, stepRecordSchema } from '@shared/schemas/joint-steps';
 import { pressureTestBodySchema, pressureTestSchema, releaseBlockerSchema, releaseBodySchema, releaseQueueSchema } from '@shared/schemas/release';
 import { handoverSchema, lockBoxCreateSchema, lockoutSchema, lockRemovalSchema, lockSchema, locksApplySchema, verificationSchema } from '@shared/schemas/lockout';
 
@@ -77,6 +77,7 @@ export const RESPONSE_SCHEMAS: Record<string, z.ZodType> = {
   JointDetail: jointDetailSchema,
   Shift: shiftSchema,
   PressureTest: pressureTestSchema,
+  TemperatureLog: temperatureLogSchema,
   ReleaseBlocker: releaseBlockerSchema,
   ReleaseQueue: releaseQueueSchema,
 };

@@ -227,3 +227,30 @@ export const shiftSchema = z.object({
   })),
 });
 export type ShiftDto = z.infer<typeof shiftSchema>;
+
+/** A temperature log as read, and what it does (or did) to each running hold of the order. */
+export const temperatureLogSchema = z.object({
+  id: z.string(),
+  workOrderId: z.string(),
+  fileName: z.string(),
+  uploadedBy: personRef,
+  uploadedAt: z.string(),
+  unit: z.enum(['F', 'C']).nullable(),
+  readings: z.array(z.object({ at: z.string(), temperatureF: z.number(), relativeHumidity: z.number().optional() })),
+  problems: z.array(z.string()),
+  status: z.enum(['previewed', 'applied']),
+  appliedAt: z.string().nullable(),
+  /** For a previewed log: each running hold's end now and by the log (never earlier); empty once applied. */
+  holds: z.array(z.object({
+    holdId: z.string(),
+    joint: z.string(),
+    kind: z.enum(HOLD_KINDS),
+    endsAt: z.string(),
+    newEndsAt: z.string().nullable(),
+    lengthenedMinutes: z.number(),
+    /** Where the log falls outside the published tables: the hold then waits for an engineering entry. */
+    refusal: z.string().nullable(),
+  })),
+});
+export type TemperatureLogDto = z.infer<typeof temperatureLogSchema>;
+export const temperatureLogIdParamsSchema = z.object({ id: z.uuid({ message: 'not a temperature log id' }) });

@@ -85,6 +85,9 @@ const TABLE: Row[] = [
   { route: 'GET /api/work-orders/:id/record-gaps', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/record-gaps` },
   { route: 'POST /api/work-orders/:id/close', allow: 'workOrders.close', sample: `/api/work-orders/${NO_ID}/close` },
   { route: 'GET /api/work-orders/:id/record.pdf', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/record.pdf` },
+  { route: 'GET /api/work-orders/:id/temperature-logs', allow: 'workOrders.read', sample: `/api/work-orders/${NO_ID}/temperature-logs` },
+  { route: 'POST /api/work-orders/:id/temperature-logs', allow: 'holds.temperatureLog', sample: `/api/work-orders/${NO_ID}/temperature-logs`, body: {} }, // no file: 400
+  { route: 'POST /api/temperature-logs/:id/apply', allow: 'holds.temperatureLog', sample: `/api/temperature-logs/${NO_ID}/apply` },
   { route: 'POST /api/holds/:id/engineering', allow: 'holds.engineeringEntry', sample: `/api/holds/${NO_ID}/engineering`, body: {} },
 ];
 

@@ -153,3 +153,35 @@ IdempotencyKey.init(
   },
   { sequelize, tableName: 'idempotency_keys', updatedAt: false },
 );
+
+/** A data logger's temperature record for an order's cure, as read; applied, it only lengthens holds. */
+export class TemperatureLog extends Model<InferAttributes<TemperatureLog>, InferCreationAttributes<TemperatureLog>> {
+  declare id: CreationOptional<string>;
+  declare workOrderId: string;
+  declare fileName: string;
+  declare uploadedById: string;
+  declare uploadedAt: Date;
+  declare unit: 'F' | 'C' | null;
+  declare readings: { at: string; temperatureF: number; relativeHumidity?: number }[];
+  declare problems: string[];
+  declare status: 'previewed' | 'applied';
+  declare appliedById: CreationOptional<string | null>;
+  declare appliedAt: CreationOptional<Date | null>;
+}
+
+TemperatureLog.init(
+  {
+    id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+    workOrderId: { type: DataTypes.UUID, allowNull: false },
+    fileName: { type: DataTypes.TEXT, allowNull: false },
+    uploadedById: { type: DataTypes.UUID, allowNull: false },
+    uploadedAt: { type: DataTypes.DATE, allowNull: false },
+    unit: { type: DataTypes.TEXT },
+    readings: { type: DataTypes.JSONB, allowNull: false },
+    problems: { type: DataTypes.JSONB, allowNull: false },
+    status: { type: DataTypes.TEXT, allowNull: false },
+    appliedById: { type: DataTypes.UUID },
+    appliedAt: { type: DataTypes.DATE },
+  },
+  { sequelize, tableName: 'temperature_logs', timestamps: false },
+);
