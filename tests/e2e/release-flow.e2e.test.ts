@@ -22,6 +22,7 @@ import { Line } from '@server/db/models/line';
 import { WorkOrder } from '@server/db/models/work-order';
 import { liftDueHolds } from '@server/services/holds/lift';
 import { APP } from '../helpers/browserless';
+import { applyMyLocksInBrowser, verifyZeroEnergyInBrowser } from '../helpers/lock-board-page';
 import { useBrowserApp } from '../helpers/browser-app';
 import { waitFor } from '../helpers/import-csv';
 import { lockNo } from '../helpers/lockout';
@@ -138,21 +139,7 @@ describe('from lockout to release', () => {
     const fitter = await pageAs('fitter', `/work-orders/${orderId}`, ZONE);
     await fitter.getByRole('heading', { name: number }).waitFor();
     await fitter.getByText('Not isolated: nobody works on the section until it is').waitFor();
-    await fitter.getByRole('button', { name: 'Apply my locks' }).click();
-    const applyForm = fitter.getByRole('form', { name: 'Apply my locks' });
-    const lockFields = applyForm.getByRole('textbox');
-    await lockFields.first().waitFor();
-    expect(await lockFields.count()).toBe(2); // the register's valve and the plan's drain
-    const fitterLocks: string[] = [];
-    for (const field of await lockFields.all()) {
-      const n = lockNo('F');
-      fitterLocks.push(n);
-      await field.fill(n);
-    }
-    await applyForm.getByRole('button', { name: 'Record my locks' }).click();
-    await applyForm.waitFor({ state: 'detached' });
-    const fitterPoints = fitter.getByRole('list', { name: 'Isolation points' });
-    for (const n of fitterLocks) await fitterPoints.getByText(`(you) · lock ${n}`, { exact: false }).waitFor();
+    const fitterLocks = await applyMyLocksInBrowser(fitter, 2); // the register's valve and the plan's drain
 
     // ── A second fitter (Noor Haddad) puts a lock of her own on the valve ─────────────────────
     const fitter2 = await pageAs('fitter2', `/work-orders/${orderId}`, ZONE);
@@ -167,11 +154,7 @@ describe('from lockout to release', () => {
 
     // ── Operations verifies zero energy ───────────────────────────────────────────────────────
     const ops = await pageAs('operations', `/work-orders/${orderId}`, ZONE);
-    const verify = ops.getByRole('form', { name: 'Verify zero energy' });
-    await verify.getByLabel('How the section was proven dead').fill('Opened the low-point drain and the vent; watched the gauge for five minutes.');
-    await verify.getByLabel('What was read').fill('0 psi on the gauge, no flow at the drain.');
-    await verify.getByRole('button', { name: 'Record zero energy verified' }).click();
-    await ops.getByText('Every point is protected and zero energy is verified; 3 locks are on.').waitFor();
+    await verifyZeroEnergyInBrowser(ops, 3);
     await stateIs(ops, number, 'Isolated');
     expect(await orderState(orderId)).toBe('isolated');
     expect((await Line.findByPk(line!.id))!.status).toBe('locked-out');

@@ -12,8 +12,9 @@ import { Line } from '@server/db/models/line';
 import { JointStepRecord, Photo } from '@server/db/models/joint-record';
 import { WorkOrder } from '@server/db/models/work-order';
 import { APP } from '../helpers/browserless';
+import { applyMyLocksInBrowser, verifyZeroEnergyInBrowser } from '../helpers/lock-board-page';
 import { useBrowserApp } from '../helpers/browser-app';
-import { lockNo, plannedOrder } from '../helpers/lockout';
+import { plannedOrder } from '../helpers/lockout';
 import { plantForWorkOrders } from '../helpers/work-orders';
 
 const { pageAs, users } = useBrowserApp({ signIn: ['planner', 'fitter', 'operations'], before: plantForWorkOrders });
@@ -41,30 +42,13 @@ describe('the shift tablet', () => {
     const fitter = await pageAs('fitter', `/work-orders/${order.id}`);
     await fitter.getByRole('heading', { name: number }).waitFor();
     await fitter.getByText('Not isolated: nobody works on the section until it is').waitFor();
-    await fitter.getByRole('button', { name: 'Apply my locks' }).click();
-    const applyForm = fitter.getByRole('form', { name: 'Apply my locks' });
-    const lockFields = applyForm.getByRole('textbox');
-    await lockFields.first().waitFor();
-    expect(await lockFields.count()).toBe(2); // the register's valve and the plan's drain
-    const myLocks: string[] = [];
-    for (const field of await lockFields.all()) {
-      const n = lockNo('F');
-      myLocks.push(n);
-      await field.fill(n);
-    }
-    await applyForm.getByRole('button', { name: 'Record my locks' }).click();
-    await applyForm.waitFor({ state: 'detached' });
+    await applyMyLocksInBrowser(fitter, 2); // the register's valve and the plan's drain
     const points = fitter.getByRole('list', { name: 'Isolation points' });
-    for (const n of myLocks) await points.getByText(`(you) · lock ${n}`, { exact: false }).waitFor();
     expect(await points.getByText('No lock: not protected').count()).toBe(0);
 
     // ── Operations, on a tablet of its own, verifies zero energy ──────────────────────────────
     const ops = await pageAs('operations', `/work-orders/${order.id}`);
-    const verify = ops.getByRole('form', { name: 'Verify zero energy' });
-    await verify.getByLabel('How the section was proven dead').fill('Opened the low-point drain and the vent; watched the gauge for five minutes.');
-    await verify.getByLabel('What was read').fill('0 psi on the gauge, no flow at the drain.');
-    await verify.getByRole('button', { name: 'Record zero energy verified' }).click();
-    await ops.getByText('Every point is protected and zero energy is verified; 2 locks are on.').waitFor();
+    await verifyZeroEnergyInBrowser(ops, 2);
     await ops.getByRole('heading', { name: number }).getByText('Isolated').waitFor();
     expect((await WorkOrder.findByPk(order.id))!.state).toBe('isolated');
 
@@ -74,7 +58,7 @@ describe('the shift tablet', () => {
     const lockout = fitter.getByRole('list', { name: `Lockout of ${number}` });
     await lockout.getByText('Section isolated and verified').waitFor();
     await lockout.getByText('Your lock is on').waitFor();
-    const jointRow = fitter.getByRole('link', { name: /^J1\b/ });
+    const jointRow = fitter.getByRole('region', { name: number }).getByRole('link', { name: /^J1\b/ }); // the fitter may have other orders' J1s on the shift
     await jointRow.getByText('Next: Prepare the ends').waitFor();
     await jointRow.click();
     await fitter.waitForURL(`${APP}/joints/${jointId}`);
