@@ -20,6 +20,7 @@ import { HoldsCard } from '@/features/work-orders/components/holds-card';
 import { PressureTestCard } from '@/features/release/components/pressure-test-card';
 import { ReleaseCard } from '@/features/release/components/release-card';
 import { RecordCard } from '@/features/release/components/record-card';
+import { TemperatureLogCard } from '@/features/release/components/temperature-log-card';
 import { ChemicalCaution } from '@/features/work-orders/components/chemical-caution';
 import { lockoutQueries } from '@/features/lockout/api';
 import { showsLockBoard } from '@/features/lockout/board';
@@ -78,6 +79,7 @@ export default function WorkOrderPage() {
           <Card title="Scope and lines"><OrderSummary order={order} /></Card>
           {showsLockBoard(order.state) && <LockBoardCard orderId={order.id} />}
           <HoldsCard holds={order.holds} tasks={order.jointTasks} />
+          <TemperatureLogCard order={order} />
           <WindowPlanCard plan={order.windowPlan} />
           <JointTasksCard orderId={order.id} lines={order.lines} tasks={order.jointTasks} mayEdit={mayEdit} />
           <IsolationPlanCard orderId={order.id} lines={order.lines} entries={order.isolationPlan} mayEdit={mayEdit} />

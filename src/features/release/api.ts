@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, sendWithKey } from '@/lib/api-client';
 import type { LineStatusBoardDto, PressureTestBody, PressureTestDto, ReleaseBlocker, ReleaseBody, ReleaseQueueDto } from '@shared/schemas/release';
+import type { TemperatureLogDto } from '@shared/schemas/joint-steps';
 
 /** GET /api/work-orders/:id/release-check (shared/schemas/release.ts has no schema of its own for it). */
 export interface ReleaseCheckDto {
@@ -75,3 +76,35 @@ export const useReleaseOrder = (orderId: string) =>
 
 /** The planner closes a released order whose record is complete. */
 export const useCloseOrder = (orderId: string) => useReleaseWrite(() => api.post<unknown>(`/api/work-orders/${orderId}/close`));
+
+// ---- temperature logs: a data logger's CSV read against the order's running holds, then applied
+
+export const temperatureLogQueries = {
+  list: (orderId: string) =>
+    queryOptions({
+      queryKey: [...releaseQueries.orders(), orderId, 'temperature-logs'] as const,
+      queryFn: () => api.get<TemperatureLogDto[]>(`/api/work-orders/${orderId}/temperature-logs`),
+    }),
+};
+
+/** Reads a CSV and answers the previewed log; nothing on the order changes yet, so only the list reloads. */
+export function useReadTemperatureLog(orderId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (file: File) => {
+      const form = new FormData();
+      form.append('file', file);
+      return api.upload<TemperatureLogDto>(`/api/work-orders/${orderId}/temperature-logs`, form);
+    },
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: temperatureLogQueries.list(orderId).queryKey }),
+  });
+}
+
+/** Applies a previewed log: the holds move, so the order (and its holds card, and this list) reloads. */
+export function useApplyTemperatureLog() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (logId: string) => api.post<TemperatureLogDto>(`/api/temperature-logs/${logId}/apply`),
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: releaseQueries.orders() }),
+  });
+}
