@@ -29,6 +29,19 @@ const TICK_DAY = new Intl.DateTimeFormat('en-US', { month: 'short', day: 'numeri
 
 interface Marker { key: string; at: number; label: string; byLog: boolean }
 
+/** Joints whose ends fall on the same minute share one line and one label ("J1, J2 cure end"). */
+function mergeMarkers(markers: Marker[]): Marker[] {
+  const byKey = new Map<string, Marker & { joints: string[] }>();
+  for (const m of markers) {
+    const k = `${Math.round(m.at / 60_000)}-${m.byLog}`;
+    const joint = m.label.split(' ')[0]!;
+    const seen = byKey.get(k);
+    if (seen) seen.joints.push(joint);
+    else byKey.set(k, { ...m, joints: [joint] });
+  }
+  return [...byKey.values()].map(({ joints, ...m }) => ({ ...m, label: `${joints.join(', ')} ${m.label.split(' ').slice(1).join(' ')}` }));
+}
+
 function plural(n: number, word: string) {
   return `${n} ${word}${n === 1 ? '' : 's'}`;
 }
@@ -149,6 +162,7 @@ export function TemperatureLogCard({ order }: { order: WorkOrderDto }) {
   for (const h of preview?.holds ?? []) {
     if (h.kind === 'cure' && h.newEndsAt && h.lengthenedMinutes > 0) markers.push({ key: `log-${h.holdId}`, at: Date.parse(h.newEndsAt), label: `${h.joint} cure end by the log`, byLog: true });
   }
+  const merged = mergeMarkers(markers);
 
   return (
     <Card title="Temperature logs">
@@ -199,7 +213,7 @@ export function TemperatureLogCard({ order }: { order: WorkOrderDto }) {
         {apply.error && <Notice tone="refusal" title="Not applied">{apply.error.message}</Notice>}
         {apply.isSuccess && !preview && <Notice tone="success" title={`"${apply.data.fileName}" applied`}>The holds above show their ends by the log.</Notice>}
 
-        {plotted && plotted.readings.length > 0 && <TemperaturePlot log={plotted} markers={markers} />}
+        {plotted && plotted.readings.length > 0 && <TemperaturePlot log={plotted} markers={merged} />}
 
         {applied.length > 0 && (
           <div>
