@@ -13,6 +13,7 @@ import { JointStepRecord, Photo } from '@server/db/models/joint-record';
 import { WorkOrder } from '@server/db/models/work-order';
 import { APP } from '../helpers/browserless';
 import { applyMyLocksInBrowser, verifyZeroEnergyInBrowser } from '../helpers/lock-board-page';
+import type { Route } from 'playwright-core';
 import { useBrowserApp } from '../helpers/browser-app';
 import { plannedOrder } from '../helpers/lockout';
 import { plantForWorkOrders } from '../helpers/work-orders';
@@ -111,6 +112,10 @@ describe('the shift tablet', () => {
     expect((await WorkOrder.findByPk(order.id))!.state).toBe('in-work');
 
     // ── The network drops ─────────────────────────────────────────────────────────────────────
+    // setOffline does not reach requests the service worker passes on, so the API is cut off too,
+    // as a dropped network would: nothing the tablet sends may arrive until it is back.
+    const cutOff = (route: Route) => route.abort('internetdisconnected');
+    await fitter.context().route('**/api/**', cutOff);
     await fitter.context().setOffline(true);
     const pill = fitter.getByRole('status').filter({ hasText: 'Offline' });
     await pill.waitFor();
@@ -155,6 +160,7 @@ describe('the shift tablet', () => {
     expect((await stepsOf(jointId)).length).toBe(4);
 
     // ── The network is back: the two writes go, in order, once ────────────────────────────────
+    await fitter.context().unroute('**/api/**', cutOff);
     await fitter.context().setOffline(false);
     await stepHeading(fitter, 'Cement', 'recorded').waitFor({ timeout: 30_000 });
     await stepHeading(fitter, 'Assemble and hold', 'recorded').waitFor({ timeout: 30_000 });
