@@ -9,7 +9,7 @@ const csvUpload = multer({
   limits: { fileSize: 50 * 1024 * 1024, files: 1 },
   fileFilter: (_req, file, cb) => {
     if (/\.csv$/i.test(file.originalname) || file.mimetype === 'text/csv' || file.mimetype === 'text/plain') return cb(null, true);
-    cb(AppError.badRequest(`"${file.originalname}" is not a CSV file; save the register from the spreadsheet as CSV and upload that.`));
+    cb(AppError.badRequest(`"${file.originalname}" is not a CSV file; save it as CSV (from the spreadsheet, or the logger's own software) and upload that.`));
   },
 });
 const single = csvUpload.single('file');

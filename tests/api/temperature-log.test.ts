@@ -46,6 +46,8 @@ describe('a temperature log', () => {
     expect((await users.operations.post(`/api/temperature-logs/${res.body.id}/apply`)).status).toBe(403);
     const applied = await users.fitter.post(`/api/temperature-logs/${res.body.id}/apply`);
     expect(applied.status).toBe(200);
+    // the answer shows the end before the log and the end by it
+    expect(applied.body.holds.find((h: { holdId: string }) => h.holdId === cure.id)).toMatchObject({ endsAt: cure.endsAt!.toISOString(), newEndsAt: preview.newEndsAt });
     const after = (await Hold.findByPk(cure.id))!;
     expect(after.endsAt!.toISOString()).toBe(preview.newEndsAt);
     expect(after.basis).toContain('lengthened');

@@ -48,13 +48,16 @@ async function holdChanges(orderId: string, readings: TemperatureLog['readings']
   });
 }
 
+/** A hold's end now and by the log, as the API shows it (read before the hold is changed). */
+const changeDto = (c: HoldChange): TemperatureLogDto['holds'][number] => ({ holdId: c.hold.id, joint: c.joint, kind: c.hold.kind, endsAt: c.hold.endsAt!.toISOString(), newEndsAt: c.newEndsAt?.toISOString() ?? null, lengthenedMinutes: c.lengthenedMinutes, refusal: c.refusal });
+
 async function toDto(log: TemperatureLog, t?: Transaction): Promise<TemperatureLogDto> {
   const names = await namesOf([log.uploadedById], t);
   const changes = log.status === 'previewed' ? await holdChanges(log.workOrderId, log.readings, t) : [];
   return {
     id: log.id, workOrderId: log.workOrderId, fileName: log.fileName, uploadedBy: { id: log.uploadedById, name: names.get(log.uploadedById) ?? '' }, uploadedAt: log.uploadedAt.toISOString(),
     unit: log.unit, readings: log.readings, problems: log.problems, status: log.status, appliedAt: log.appliedAt?.toISOString() ?? null,
-    holds: changes.map((c) => ({ holdId: c.hold.id, joint: c.joint, kind: c.hold.kind, endsAt: c.hold.endsAt!.toISOString(), newEndsAt: c.newEndsAt?.toISOString() ?? null, lengthenedMinutes: c.lengthenedMinutes, refusal: c.refusal })),
+    holds: changes.map(changeDto),
   };
 }
 
@@ -81,6 +84,8 @@ export async function applyTemperatureLog(me: Me, logId: string): Promise<Temper
     if (log.status === 'applied') throw AppError.conflict(`"${log.fileName}" was already applied.`);
     if (!LOGGABLE.includes(order.state)) throw AppError.conflict(`${order.number} is ${stateWords(order.state)}; a temperature log is applied while its joints cure.`);
     const changes = await holdChanges(order.id, log.readings, t);
+    // the answer shows each hold's end before the log, so it is taken before the holds change
+    const before = changes.map(changeDto);
     const moved: Hold[] = [];
     for (const c of changes) {
       if (c.refusal) {
@@ -96,7 +101,7 @@ export async function applyTemperatureLog(me: Me, logId: string): Promise<Temper
       actorId: me.id, action: 'temperature-log-applied', entity: AUDIT_ENTITY, entityId: order.id,
       after: { file: log.fileName, readings: log.readings.length, lengthened: changes.filter((c) => c.lengthenedMinutes > 0).map((c) => `${c.joint} ${c.hold.kind} +${c.lengthenedMinutes} min`), refused: changes.filter((c) => c.refusal).map((c) => `${c.joint} ${c.hold.kind}`) },
     }, t);
-    return { ...(await toDto(log, t)), holds: changes.map((c) => ({ holdId: c.hold.id, joint: c.joint, kind: c.hold.kind, endsAt: (c.hold.endsAt ?? c.newEndsAt ?? new Date(0)).toISOString(), newEndsAt: c.newEndsAt?.toISOString() ?? null, lengthenedMinutes: c.lengthenedMinutes, refusal: c.refusal })) };
+    return { ...(await toDto(log, t)), holds: before };
   });
 }
 
