@@ -24,6 +24,10 @@ import { liftDueHolds } from '@server/services/holds/lift';
 import { lockoutBoard } from '@server/services/lockout/board';
 import { removeLock } from '@server/services/lockout/locks';
 import { recordPressureTest } from '@server/services/release/pressure-test';
+import { releaseOrder } from '@server/services/release/release';
+import { closeOrder } from '@server/services/record/completeness';
+import { storePhoto } from '@server/services/joints/photos';
+import sharp from 'sharp';
 import { compute, loadFacts } from '@server/services/work-orders/order-facts';
 import { recordAudit } from '@server/services/audit-service';
 import { effectiveRoles } from '@server/services/people-service';
@@ -49,7 +53,7 @@ interface DemoOrder {
   /** The username of the fitter the joints go to. */
   fitter?: 'fitter' | 'fitter2';
   /** Where the order is left. */
-  state: Extract<WorkOrderState, 'draft' | 'planned' | 'in-work' | 'curing' | 'ready' | 'cancelled'>;
+  state: Extract<WorkOrderState, 'draft' | 'planned' | 'isolated' | 'in-work' | 'curing' | 'testing' | 'ready' | 'released' | 'closed' | 'cancelled'>;
   lateReason?: string;
   cancelReason?: string;
 }
@@ -115,6 +119,35 @@ export const DEMO_ORDERS: DemoOrder[] = [
     joints: [{ fitting: 'coupling', count: 2 }],
   },
   {
+    // Isolated: the fitter's locks on and zero energy verified an hour ago; no joint started yet.
+    line: '200-BR-001', kind: 'repair', priority: 'soon', state: 'isolated', fitter: 'fitter',
+    scope: 'Cut out the brine line tee that weeps at the dissolver overflow and make it up with a new tee.',
+    window: { day: 0, hour: -1, hours: 30, fromLoad: true }, forecast: { lowF: 62, highRh: 60 },
+    joints: [{ fitting: 'tee', count: 1 }],
+  },
+  {
+    // Testing: every cure hold ran out twenty minutes ago; the test waits on the fitter's locks coming off.
+    line: '300-FW-002', kind: 'repair', priority: 'soon', state: 'testing', fitter: 'fitter',
+    scope: 'Replace the cracked elbow on the filtered-water line under the filter gallery walkway.',
+    window: { day: 0, hour: -20, hours: 36, fromLoad: true }, forecast: { lowF: 60, highRh: 55 },
+    joints: [{ fitting: 'elbow-90', count: 2 }],
+  },
+  {
+    // Released by operations as the plant was loaded: the line is back in service; the planner has yet to close it.
+    line: '400-ROC-001', kind: 'repair', priority: 'soon', state: 'released', fitter: 'fitter',
+    scope: 'Replace the RO concentrate coupling that was struck by a forklift at the skid edge.',
+    window: { day: 0, hour: -30, hours: 32, fromLoad: true }, forecast: { lowF: 66, highRh: 50 },
+    joints: [{ fitting: 'coupling', count: 2 }],
+  },
+  {
+    // Closed: made two days ago, every step, photo and the test recorded; released and closed as the plant was
+    // loaded, so its record prints as a PDF.
+    line: '300-FC-001', kind: 'repair', priority: 'urgent', state: 'closed', fitter: 'fitter',
+    scope: 'Replace the ferric chloride dosing elbow that wept at the injection quill.',
+    window: { day: 0, hour: -54, hours: 30, fromLoad: true }, forecast: { lowF: 64, highRh: 55 },
+    joints: [{ fitting: 'elbow-90', count: 1 }],
+  },
+  {
     line: '500-AD-001', kind: 'repair', priority: 'soon', state: 'cancelled',
     scope: 'Drip reported on the acid drain line at the pit wall: replace the coupling there.',
     window: { day: 1, hour: 6, hours: 12 }, forecast: { lowF: 66, highRh: 60 },
@@ -171,17 +204,34 @@ async function makeOrder(spec: DemoOrder, line: Line, people: { planner: Me; req
   }));
   if (spec.state !== 'draft') await submitPlan(planner, order.id, spec.lateReason ? { lateReason: spec.lateReason } : {});
   if (spec.state === 'cancelled') await cancelOrder(planner, order.id, spec.cancelReason!);
-  if (spec.state === 'in-work' || spec.state === 'curing' || spec.state === 'ready') await workThrough(order.id, line, people, spec.state, from);
+  if (WORKED.includes(spec.state as Worked)) await workThrough(order.id, line, people, spec.state as Worked, from);
   return (await WorkOrder.findByPk(order.id))!;
 }
 
+const WORKED = ['isolated', 'in-work', 'curing', 'testing', 'ready', 'released', 'closed'] as const;
+type Worked = (typeof WORKED)[number];
+/** How long before loading the cure holds of an order left in this state ran out. */
+const CURED_AGO_MIN: Partial<Record<Worked, number>> = { testing: 20, ready: 60, released: 150, closed: 48 * 60 };
+
+/** A picture for a demo joint's photo: a pipe in its socket with the insertion and check marks drawn (no real photo). */
+async function demoPhoto(label: string): Promise<Buffer> {
+  const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="640" height="480"><rect width="640" height="480" fill="#8b9aa6"/>` +
+    `<rect x="40" y="190" width="380" height="100" fill="#d9dcd6"/><rect x="400" y="170" width="200" height="140" fill="#c6ccc3"/>` +
+    `<rect x="300" y="186" width="6" height="108" fill="#22313f"/><rect x="350" y="186" width="6" height="108" fill="#22313f"/>` +
+    `<text x="40" y="420" font-family="sans-serif" font-size="28" fill="#101820">${label}</text></svg>`;
+  return sharp(Buffer.from(svg)).jpeg({ quality: 80 }).toBuffer();
+}
+
 /**
- * The fitter locks every point and operations verifies zero energy. Then, for an order in work, the
- * first joint is prepared and dry-fitted; for one curing, every joint is made (its holds running);
- * for one ready, the joints were made the day before: their holds are moved back to have run out,
- * the sweep's lift ends them, the fitter takes the locks off and operations records a passed test.
+ * The fitter locks every point and operations verifies zero energy; an order left isolated stops
+ * there. For an order in work, the first joint is prepared and dry-fitted; for one curing, every
+ * joint is made (its holds running). Further on, the joints were made before loading: their holds
+ * are moved back to have run out (CURED_AGO_MIN) and lifted as the sweep would — an order left
+ * testing keeps its locks on. For ready and beyond the fitter takes the locks off and operations
+ * records a passed test; a released order was signed back to service by operations; a closed one
+ * also has its photos and was closed by the planner.
  */
-async function workThrough(orderId: string, line: Line, people: { requester: Me; fitters: Record<string, Me> }, until: 'in-work' | 'curing' | 'ready', from: Date) {
+async function workThrough(orderId: string, line: Line, people: { planner: Me; requester: Me; fitters: Record<string, Me> }, until: Worked, from: Date) {
   const fitter = people.fitters.fitter!;
   const { entries } = await getIsolationPlan(orderId);
   const prefix = line.lineNumber.replace(/\D/g, '').slice(0, 3);
@@ -192,7 +242,7 @@ async function workThrough(orderId: string, line: Line, people: { requester: Me;
     reading: '0 psi on the gauge; drain dry after the first litre.',
   }, t));
   const joints = await JointTask.findAll({ where: { workOrderId: orderId }, order: [['number', 'ASC']] });
-  if (!joints.length || !fitter.roles.includes('fitter')) return;
+  if (until === 'isolated' || !joints.length || !fitter.roles.includes('fitter')) return;
   const depth = socketMarks({ nominalSize: line.nominalSize, schedule: Number(line.schedule) === 80 ? 80 : 40 });
   const material = line.material as keyof typeof CEMENT_FOR_MATERIAL;
   const steps: StepRecord[] = [
@@ -211,21 +261,34 @@ async function workThrough(orderId: string, line: Line, people: { requester: Me;
   }
   for (const j of joints) for (const step of steps) await record(j.id, step);
   if (until === 'curing') return;
-  // Made the day before: every hold moved back so it ran out an hour ago, then lifted as the sweep would.
-  for (const h of await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } })) {
-    const back = h.endsAt!.getTime() - (from.getTime() - 3_600_000);
-    await h.update({ startsAt: new Date(h.startsAt.getTime() - back), endsAt: new Date(h.endsAt!.getTime() - back) });
-  }
+  // Made before loading: every hold moved back so the last ran out CURED_AGO_MIN ago, then lifted as the sweep would.
+  const curedAt = from.getTime() - CURED_AGO_MIN[until]! * 60_000;
+  const running = await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } });
+  const back = Math.max(...running.map((h) => h.endsAt!.getTime())) - curedAt;
+  for (const h of running) await h.update({ startsAt: new Date(h.startsAt.getTime() - back), endsAt: new Date(h.endsAt!.getTime() - back) });
   await liftDueHolds();
+  if (until === 'testing') return;
   const board = await lockoutBoard(orderId, fitter.id);
   for (const l of board.myLocks) await sequelize.transaction((t) => removeLock(fitter, l.id, {}, t));
   const order = (await WorkOrder.findByPk(orderId))!;
   const testPsi = compute(await loadFacts(orderId)).testPressure.testPsi ?? 0;
   await sequelize.transaction((t) => recordPressureTest(people.requester, orderId, {
     toolsClear: true, peopleClear: true, medium: 'water', testPressurePsi: testPsi, gauge: 'PI-T2, 0–400 psi, calibrated 2026-10',
-    startedAt: new Date(from.getTime() - 40 * 60_000).toISOString(), startReadingPsi: testPsi, endedAt: new Date(from.getTime() - 20 * 60_000).toISOString(), endReadingPsi: testPsi,
+    startedAt: new Date(curedAt + 20 * 60_000).toISOString(), startReadingPsi: testPsi, endedAt: new Date(curedAt + 40 * 60_000).toISOString(), endReadingPsi: testPsi,
     result: 'passed', leakingJointIds: [], pipingIdentified: `${line.lineNumber}, the repaired run between its isolation points (${order.number})`, examiner: 'Rafe Adeyemi, plant inspector',
   }, t));
+  if (until === 'ready') return;
+  if (until === 'closed') {
+    for (const j of joints) for (const step of ['depth-marks', 'wipe'] as const) {
+      const picture = await demoPhoto(`${order.number} J${j.number} ${step === 'wipe' ? 'finished joint' : 'depth marks'} (demo picture)`);
+      await sequelize.transaction((t) => storePhoto(fitter, j.id, step, picture, t));
+    }
+  }
+  await releaseOrder(people.requester, orderId, {
+    areaInspected: true, peopleClear: true, affectedTold: true, ventsDrainsSet: true, slowRefill: true,
+    notes: 'Refilled over twenty minutes from the header drain valve, vented at the high point; no weep at the new joints after an hour at pressure.',
+  });
+  if (until === 'closed') await closeOrder(people.planner, orderId);
 }
 
 export interface DemoOrdersResult {

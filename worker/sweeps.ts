@@ -4,7 +4,8 @@
 
 import { recoverStalledImports } from '@server/services/line-imports/recovery';
 import { liftDueHolds } from '@server/services/holds/lift';
-import { watchWindows } from '@server/services/holds/watches';
+import { watchLeftLocks, watchWindows } from '@server/services/holds/watches';
+import { pruneChangeLog } from '@server/db/change-log';
 
 export interface Sweep {
   name: string;
@@ -16,4 +17,6 @@ export const SWEEPS: readonly Sweep[] = [
   { name: 'line-import-recovery', run: () => recoverStalledImports().then((r) => ({ ...r })) },
   { name: 'hold-lifts', run: () => liftDueHolds().then((r) => ({ ...r })) },
   { name: 'window-watch', run: () => watchWindows().then((r) => ({ ...r })) },
+  { name: 'lock-left-on-watch', run: () => watchLeftLocks().then((r) => ({ ...r })) },
+  { name: 'change-log-prune', run: async () => { await pruneChangeLog(); } },
 ];

@@ -8,7 +8,7 @@ import type { MailJob, MailPurpose } from '@server/queues/mail';
 import type { OutgoingMail } from './send-mail';
 import { lineImportApplied, lineImportFailed } from './templates/line-import-outcome';
 import { latePlanMail } from './work-order-mail';
-import { absentLockMail } from './lockout-mail';
+import { absentLockMail, lockLeftOnMail } from './lockout-mail';
 import { holdLiftedMail, testReadyMail, windowAtRiskMail } from './hold-mail';
 import { readyForReleaseMail } from './release-mail';
 
@@ -31,6 +31,7 @@ const COMPOSERS: Record<MailPurpose, Composer> = {
   'test-ready': testReadyMail,
   'ready-for-release': readyForReleaseMail,
   'window-at-risk': windowAtRiskMail,
+  'lock-left-on': lockLeftOnMail,
 };
 
 export function composeMail(job: MailJob): Promise<OutgoingMail | null> {

@@ -5,7 +5,7 @@ import { queueFor } from './connection';
 export const MAIL_QUEUE = 'mail';
 
 /** Every reason the product sends mail; each has a template in server/mail/templates. */
-export const MAIL_PURPOSES = ['line-import-applied', 'line-import-failed', 'work-order-planned-late', 'lock-removed-absent', 'hold-lifted', 'test-ready', 'ready-for-release', 'window-at-risk'] as const;
+export const MAIL_PURPOSES = ['line-import-applied', 'line-import-failed', 'work-order-planned-late', 'lock-removed-absent', 'hold-lifted', 'test-ready', 'ready-for-release', 'window-at-risk', 'lock-left-on'] as const;
 export type MailPurpose = (typeof MAIL_PURPOSES)[number];
 
 export const mailJobSchema = z.object({ purpose: z.enum(MAIL_PURPOSES), recordId: z.string().min(1).max(200) });

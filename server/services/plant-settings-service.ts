@@ -5,7 +5,7 @@ import { Person } from '@server/db/models/person';
 import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
 import { DEFAULT_CURE_SCHEDULE_ID, listCureSchedules } from '@shared/trade';
-import { DEFAULT_TIME_ZONE, effectiveWindowPlan, type PlantSettings, type PlantSettingsBody } from '@shared/schemas/plant-settings';
+import { DEFAULT_LOCK_LEFT_ON_MINUTES, DEFAULT_TIME_ZONE, effectiveWindowPlan, type PlantSettings, type PlantSettingsBody } from '@shared/schemas/plant-settings';
 import type { Me } from '@shared/schemas/roles';
 
 const SETTINGS_ID = 1;
@@ -28,7 +28,8 @@ async function toDto(row: PlantSetting | null): Promise<PlantSettings> {
     updatedBy: who ? { id: who.id, name: who.name } : null,
     timeZone: row?.timeZone ?? DEFAULT_TIME_ZONE,
     windowPlan: windowPlan.values,
-    atDefault: [...(row?.timeZone ? [] : ['timeZone']), ...windowPlan.defaults.map((k) => `windowPlan.${k}`)],
+    lockLeftOnMinutes: row?.lockLeftOnMinutes ?? DEFAULT_LOCK_LEFT_ON_MINUTES,
+    atDefault: [...(row?.timeZone ? [] : ['timeZone']), ...windowPlan.defaults.map((k) => `windowPlan.${k}`), ...(row?.lockLeftOnMinutes ? [] : ['lockLeftOnMinutes'])],
   };
 }
 
@@ -61,19 +62,20 @@ export async function setPlantSettings(actor: Me, body: PlantSettingsBody): Prom
   const row = await sequelize.transaction(async (transaction) => {
     const [setting, created] = await PlantSetting.findOrCreate({ where: { id: SETTINGS_ID }, defaults: { id: SETTINGS_ID, updatedById: null, version: 0 }, transaction, lock: transaction.LOCK.UPDATE });
     if (!created && setting.version !== body.version) throw await staleSave(setting);
-    const before = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan };
+    const before = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan, lockLeftOnMinutes: setting.lockLeftOnMinutes };
     await setting.update(
       {
         cureScheduleId: body.cureScheduleId,
         testCap: body.testCap,
         ...(body.timeZone === undefined ? {} : { timeZone: body.timeZone === null ? null : canonicalZone(body.timeZone) }),
         ...(body.windowPlan === undefined ? {} : { windowPlan: body.windowPlan }),
+        ...(body.lockLeftOnMinutes === undefined ? {} : { lockLeftOnMinutes: body.lockLeftOnMinutes }),
         updatedById: actor.id,
         version: setting.version + 1,
       },
       { transaction },
     );
-    const after = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan };
+    const after = { cureScheduleId: setting.cureScheduleId, testCap: setting.testCap, timeZone: setting.timeZone, windowPlan: setting.windowPlan, lockLeftOnMinutes: setting.lockLeftOnMinutes };
     await recordAudit({ actorId: actor.id, action: 'plant-settings-set', entity: 'plant-settings', entityId: String(SETTINGS_ID), before, after }, transaction);
     return setting;
   });

@@ -74,6 +74,13 @@ export function effectiveWindowPlan(set: Partial<WindowPlanSettings> | null | un
   return { values, defaults };
 }
 
+/**
+ * DEFAULT, not from a published source [practice]: an hour after an order's last cure hold ends,
+ * a lock still on (its test waits on it; often someone who went home) is worth a supervisor's call.
+ */
+export const DEFAULT_LOCK_LEFT_ON_MINUTES = 60;
+export const lockLeftOnMinutesSchema = z.number().int().min(5, 'at least 5 minutes').max(24 * 60, 'at most 24 hours (1,440 minutes)');
+
 /** What an administrator sends to change the plant's settings. */
 export const plantSettingsBodySchema = z.object({
   cureScheduleId: z
@@ -86,6 +93,8 @@ export const plantSettingsBodySchema = z.object({
   timeZone: z.string().trim().refine(isTimeZone, { message: 'not a time zone name (e.g. America/Chicago)' }).nullable().optional(),
   /** The window plan's minutes as the plant sets them (keys left out are the defaults); left out: unchanged. */
   windowPlan: windowPlanSettingsSchema.partial().optional(),
+  /** Minutes a lock may stay on after the order's cure holds have all ended before a supervisor is told; null: back to the default. */
+  lockLeftOnMinutes: lockLeftOnMinutesSchema.nullable().optional(),
 });
 export type PlantSettingsBody = z.infer<typeof plantSettingsBodySchema>;
 
@@ -95,6 +104,7 @@ export const plantSettingsSchema = plantSettingsBodySchema.extend({
   updatedBy: z.object({ id: z.string(), name: z.string() }).nullable(),
   timeZone: z.string(),
   windowPlan: windowPlanSettingsSchema,
+  lockLeftOnMinutes: lockLeftOnMinutesSchema,
   /** The settings still at their shipped default ('timeZone', 'windowPlan.releaseMinutes' …), marked as such on every screen. */
   atDefault: z.array(z.string()),
 });

@@ -143,6 +143,26 @@ describe('GET and PUT /api/plant-settings', () => {
     expect((await second.put('/api/plant-settings', { cureScheduleId: 'A', testCap: 'rating', version: version + 1 })).status).toBe(200);
   });
 
+  it("the minutes before a lock left on is told: the default until set, set and audited, refused outside 5–1,440, and back to the default with null", async () => {
+    const admin = await signedIn('admin');
+    let now = (await admin.get('/api/plant-settings')).body;
+    expect(now.lockLeftOnMinutes).toBe(60);
+    expect(now.atDefault).toContain('lockLeftOnMinutes');
+    const bad = await admin.put('/api/plant-settings', { cureScheduleId: now.cureScheduleId, testCap: now.testCap, version: now.version, lockLeftOnMinutes: 3 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.details.lockLeftOnMinutes[0]).toMatch(/at least 5 minutes/);
+    const set = await admin.put('/api/plant-settings', { cureScheduleId: now.cureScheduleId, testCap: now.testCap, version: now.version, lockLeftOnMinutes: 120 });
+    expect(set.status).toBe(200);
+    expect(set.body.lockLeftOnMinutes).toBe(120);
+    expect(set.body.atDefault).not.toContain('lockLeftOnMinutes');
+    expect((await PlantSetting.findByPk(1))!.lockLeftOnMinutes).toBe(120);
+    const audit = await AuditEntry.findOne({ where: { action: 'plant-settings-set' }, order: [['id', 'DESC']] });
+    expect(audit).toMatchObject({ before: { lockLeftOnMinutes: null }, after: { lockLeftOnMinutes: 120 } });
+    now = set.body;
+    const back = await admin.put('/api/plant-settings', { cureScheduleId: now.cureScheduleId, testCap: now.testCap, version: now.version, lockLeftOnMinutes: null });
+    expect(back.body).toMatchObject({ lockLeftOnMinutes: 60, atDefault: expect.arrayContaining(['lockLeftOnMinutes']) });
+  });
+
   it('a schedule that is not published is a 400 naming the field, and nothing changes', async () => {
     const res = await (await signedIn('admin')).put('/api/plant-settings', { cureScheduleId: 'Z', testCap: 'nearly' });
     expect(res.status).toBe(400);

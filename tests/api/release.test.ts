@@ -10,50 +10,16 @@ import { Line } from '@server/db/models/line';
 import { IsolationVerification, Lock } from '@server/db/models/lockout';
 import { PressureTest, Release } from '@server/db/models/release';
 import { WorkOrder } from '@server/db/models/work-order';
-import { liftDueHolds } from '@server/services/holds/lift';
-import type { Browserless } from '../helpers/browserless';
 import { useTestApp } from '../helpers/app';
-import { isolatedOrder, jpegPicture, lockEveryPoint, recordStep, recordStepsThrough, uploadPhoto, verificationOf } from '../helpers/lockout';
+import { jpegPicture, lockEveryPoint, recordStep, uploadPhoto, verificationOf } from '../helpers/lockout';
 import { plantForWorkOrders } from '../helpers/work-orders';
+import { CHECKLIST, cureEnds, curingOrder as curingOrderOf, release, removeMyLocks, testBody as testBodyOf } from '../helpers/release';
 
 const users = useTestApp({ signIn: ['planner', 'fitter', 'operations', 'supervisor'], before: plantForWorkOrders });
 afterEach(() => setClockOffsetForTests(0));
 
-const CHECKLIST = { areaInspected: true, peopleClear: true, affectedTold: true, ventsDrainsSet: true, slowRefill: true };
-const release = (b: Browserless, id: string) => b.post(`/api/work-orders/${id}/release`, CHECKLIST);
-
-/** An order whose one joint is assembled and wiped: curing, the fitter's locks on. */
-async function curingOrder() {
-  const made = await isolatedOrder(users, { joints: 1 });
-  await recordStepsThrough(users.fitter, made.jointIds[0]!, 'wipe');
-  return made;
-}
-
-/** Moves the clock past every hold of the order and lets the sweep lift them: the order is testing. */
-async function cureEnds(orderId: string) {
-  const holds = await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } });
-  const last = Math.max(...holds.map((h) => h.endsAt!.getTime()));
-  setClockOffsetForTests(last - Date.now() + 60_000);
-  await liftDueHolds();
-  expect((await WorkOrder.findByPk(orderId))!.state).toBe('testing');
-}
-
-async function removeMyLocks(b: Browserless, orderId: string) {
-  const board = (await b.get(`/api/work-orders/${orderId}/lockout`)).body;
-  for (const l of board.myLocks) expect((await b.tablet(`/api/locks/${l.id}/removal`, {})).status).toBe(200);
-}
-
-async function testBody(orderId: string, over: Record<string, unknown> = {}) {
-  const o = (await users.planner.get(`/api/work-orders/${orderId}`)).body;
-  const psi = o.testPressure.testPsi as number;
-  const end = new Date(Date.now() + 60_000 - 1000); // within the moved clock's now (the clock runs ahead in these tests)
-  return {
-    toolsClear: true, peopleClear: true, medium: 'water', testPressurePsi: psi, gauge: 'PI-T3, 0–600 psi, calibrated 2026-09',
-    startedAt: new Date(end.getTime() - 15 * 60_000).toISOString(), startReadingPsi: psi, endedAt: end.toISOString(), endReadingPsi: psi,
-    result: 'passed', pipingIdentified: `${o.lines[0].lineNumber}, the repaired section between the isolation points`, examiner: 'R. Adeyemi, plant inspector',
-    ...over,
-  };
-}
+const curingOrder = () => curingOrderOf(users);
+const testBody = (orderId: string, over: Record<string, unknown> = {}) => testBodyOf(users.planner, orderId, over);
 
 describe('release refused while anything is open', () => {
   it('a curing order: refused (409) naming the state, each lock and whose, each hold with its end, and the missing test — with no worker running', async () => {

@@ -4,12 +4,16 @@ import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { JointTask } from '@server/db/models/joint-task';
 import { Line } from '@server/db/models/line';
 import { Person } from '@server/db/models/person';
-import { JointStepRecord } from '@server/db/models/joint-record';
+import { Hold, JointStepRecord, Photo } from '@server/db/models/joint-record';
 import { lockoutBoard } from '@server/services/lockout/board';
 import { WorkOrder } from '@server/db/models/work-order';
 import { closeQueues } from '@server/queues/connection';
 import { getOrder } from '@server/services/work-orders/order-dto';
 import { confirmImport, uploadImport } from '@server/services/line-imports/import-service';
+import { Release } from '@server/db/models/release';
+import { WorkOrderLine } from '@server/db/models/work-order';
+import { orderRecordGaps } from '@server/services/record/completeness';
+import { WORK_ORDER_STATES } from '@shared/schemas/work-orders';
 import { DEMO_ORDERS, DEMO_ORDER_LINES, loadDemoOrders, type DemoOrdersResult } from '../../scripts/demo-orders';
 import { demoPlant, toCsv } from '../../scripts/demo-plant';
 
@@ -42,7 +46,7 @@ describe('the demo plant\'s work orders', () => {
     const orders = await WorkOrder.findAll({ where: { scope: { [Op.in]: DEMO_ORDERS.map((o) => o.scope) } } });
     expect(orders).toHaveLength(DEMO_ORDERS.length);
     for (const spec of DEMO_ORDERS) expect(orders.find((o) => o.scope === spec.scope)?.state, spec.scope).toBe(spec.state);
-    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(['draft', 'planned', 'in-work', 'curing', 'ready', 'cancelled']));
+    expect(new Set(orders.map((o) => o.state))).toEqual(new Set(WORK_ORDER_STATES)); // every state a planner, fitter or operations lead meets
   });
 
   it('carry their joints and an isolation plan, and the late and cancelled ones their reasons', async () => {
@@ -74,6 +78,26 @@ describe('the demo plant\'s work orders', () => {
     expect(steps.map((s) => s.step).sort()).toEqual(['dry-fit', 'prep']);
   });
 
+  it('show operations an order testing (cures run out, locks still on), one released (its line in service) and one closed with its record complete', async () => {
+    const of = async (state: string) => (await WorkOrder.findOne({ where: { scope: DEMO_ORDERS.find((o) => o.state === state)!.scope } }))!;
+    const testing = await of('testing');
+    expect(await Hold.count({ where: { workOrderId: testing.id, status: { [Op.ne]: 'ended' } } })).toBe(0);
+    expect((await lockoutBoard(testing.id, testing.createdById)).points.every((p) => p.locks.length > 0)).toBe(true);
+    const isolated = await of('isolated');
+    expect(await lockoutBoard(isolated.id, isolated.createdById)).toMatchObject({ isolated: true, missing: [] });
+    const taskIds = async (orderId: string) => (await JointTask.findAll({ where: { workOrderId: orderId } })).map((j) => j.id);
+    expect(await JointStepRecord.count({ where: { jointTaskId: { [Op.in]: await taskIds(isolated.id) } } })).toBe(0);
+    for (const state of ['released', 'closed']) {
+      const order = await of(state);
+      expect(await Release.count({ where: { workOrderId: order.id } }), state).toBe(1);
+      const [line] = await WorkOrderLine.findAll({ where: { workOrderId: order.id } });
+      expect((await Line.findByPk(line!.lineId))!.status, state).toBe('in-service');
+    }
+    const closed = await of('closed');
+    expect(await orderRecordGaps(closed.id)).toEqual([]);
+    expect(await Photo.count({ where: { jointTaskId: { [Op.in]: await taskIds(closed.id) } } })).toBe(2); // depth marks and the finished joint
+  });
+
   it('have their windows in the days after they were loaded', async () => {
     for (const spec of DEMO_ORDERS) {
       const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
@@ -82,9 +106,10 @@ describe('the demo plant\'s work orders', () => {
         continue;
       }
       if (spec.window.fromLoad) {
-        // The order under way: its window is open at the moment of loading.
+        // An order under way: its window is open at the moment of loading; a closed one's has ended.
         expect(order.windowStart!.getTime(), spec.scope).toBeLessThan(order.createdAt.getTime());
-        expect(order.windowEnd!.getTime(), spec.scope).toBeGreaterThan(order.createdAt.getTime());
+        if (spec.state === 'closed') expect(order.windowEnd!.getTime(), spec.scope).toBeLessThan(order.createdAt.getTime());
+        else expect(order.windowEnd!.getTime(), spec.scope).toBeGreaterThan(order.createdAt.getTime());
         continue;
       }
       const daysAhead = (order.windowStart!.getTime() - order.createdAt.getTime()) / 86_400_000;

@@ -12,6 +12,8 @@ export class PlantSetting extends Model<InferAttributes<PlantSetting>, InferCrea
   declare windowPlan: CreationOptional<Partial<WindowPlanSettings>>;
   /** IANA name; null is the default (DEFAULT_TIME_ZONE). */
   declare timeZone: CreationOptional<string | null>;
+  /** Minutes a lock may stay on after the order's cure holds have all ended before a supervisor is told; null is the default. */
+  declare lockLeftOnMinutes: CreationOptional<number | null>;
   /** Raised by every save; a save from an older version is refused (two admins at once). */
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -26,6 +28,7 @@ PlantSetting.init(
     updatedById: { type: DataTypes.UUID },
     windowPlan: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
     timeZone: { type: DataTypes.TEXT },
+    lockLeftOnMinutes: { type: DataTypes.INTEGER },
     version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

@@ -22,10 +22,12 @@ export function PlantSettingsForm({ settings, canChange }: { settings: PlantSett
   const form = useForm<PlantSettingsBody>({
     resolver: zodResolver(plantSettingsBodySchema),
     // The version the form was opened at: a save over someone else's newer one is refused (409).
-    values: { cureScheduleId: settings.cureScheduleId, testCap: settings.testCap, version: settings.version },
+    values: { cureScheduleId: settings.cureScheduleId, testCap: settings.testCap, version: settings.version, lockLeftOnMinutes: settings.lockLeftOnMinutes },
   });
   const chosen = form.watch();
-  const onSubmit = form.handleSubmit((body) => save.mutate(body, {
+  const lockMinutesAtDefault = settings.atDefault.includes('lockLeftOnMinutes');
+  // a default left untouched stays the default (and follows it if a later version changes it)
+  const onSubmit = form.handleSubmit(({ lockLeftOnMinutes, ...body }) => save.mutate(form.formState.dirtyFields.lockLeftOnMinutes ? { ...body, lockLeftOnMinutes } : body, {
     onError: (err) => {
       if (err instanceof ApiRequestError) for (const [k, m] of Object.entries(err.details ?? {})) form.setError(k as keyof PlantSettingsBody, { message: m.join(' ') });
     },
@@ -49,6 +51,21 @@ export function PlantSettingsForm({ settings, canChange }: { settings: PlantSett
             <span className="block font-semibold">{TEST_CAP_LABELS[cap]}</span>
           </Option>
         ))}
+      </fieldset>
+      <fieldset disabled={!canChange} className="space-y-2">
+        <legend className="mb-1 font-semibold">Locks left on</legend>
+        <label className="flex flex-wrap items-center gap-3">
+          <span>Tell the supervisors when a lock is still on</span>
+          <input
+            type="number" inputMode="numeric" min={5} max={1440} step={1}
+            className="min-h-11 w-24 rounded-lg border border-ink/25 px-3 tabular-nums"
+            aria-describedby="lock-left-on-help"
+            {...form.register('lockLeftOnMinutes', { valueAsNumber: true })}
+          />
+          <span>minutes after an order's cure holds have all run out{lockMinutesAtDefault && <span className="text-ink-soft"> (default)</span>}</span>
+        </label>
+        <p id="lock-left-on-help" className="text-sm text-ink-soft">The hydrostatic test waits on every lock coming off the test boundary; a lock still on is often someone who went home.</p>
+        {form.formState.errors.lockLeftOnMinutes && <p className="text-sm text-refuse">{form.formState.errors.lockLeftOnMinutes.message}</p>}
       </fieldset>
       {save.isError && <Notice tone="refusal" title="Not saved">{save.error.message}</Notice>}
       {save.isSuccess && !form.formState.isDirty && <Notice tone="success" title="Saved">The calculator and the server use these from now on.</Notice>}

@@ -23,6 +23,12 @@ const ACTIONS: Record<string, string> = {
   'pressure-test-passed': 'Recorded the hydrostatic test: passed',
   'pressure-test-failed': 'Recorded the hydrostatic test: failed',
   'order-released': 'Released the lines to service',
+  'work-order-closed': 'Closed the order with its record',
+  'hold-ended': 'A hold ran out',
+  'engineering-cure-time': 'Entered an engineering cure time',
+  'temperature-log-applied': 'Applied a temperature log to the holds',
+  'window-at-risk': 'Told the planner and operations: the work will run past its window',
+  'lock-left-on': 'Told the supervisors: a lock is still on after the cure ended',
 };
 
 const FIELDS: Record<string, string> = {
@@ -35,6 +41,7 @@ const FIELDS: Record<string, string> = {
   replacedBy: 'replaced by', holdsVoided: 'holds made void', procedure: '(e)(3) record',
   medium: 'medium', readings: 'readings', holdMinutes: 'held (min)', witness: 'witness', examiner: 'examiner', redone: 'cut out for redo',
   releasedBy: 'released by', checklist: 'checklist', notes: 'notes', linesInService: 'lines back in service',
+  curesEndedAt: 'every cure ended', minutes: 'after (min)',
   fits: 'fits the window', testPsi: 'test pressure (psi)', earliestRelease: 'earliest release', neededWindowEnd: 'window end needed', lateStep: 'late step',
 };
 const INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
@@ -52,7 +59,7 @@ const show = (v: unknown): string => {
 function Change({ before, after }: { before: unknown; after: unknown }) {
   const b = (before && typeof before === 'object' ? before : {}) as Record<string, unknown>;
   const a = (after && typeof after === 'object' ? after : {}) as Record<string, unknown>;
-  const keys = [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => k !== 'version');
+  const keys = [...new Set([...Object.keys(b), ...Object.keys(a)])].filter((k) => k !== 'version' && k !== 'lockId'); // ids mean nothing to a reader
   if (!keys.length) return null;
   return (
     <ul className="mt-0.5 text-ink-soft">
