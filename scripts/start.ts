@@ -63,7 +63,7 @@ async function main() {
   const children: ChildProcess[] = [startTs('server/index.ts', { ...env, LW_PROCESS: 'api' }), startTs('worker/index.ts', { ...env, LW_PROCESS: 'worker' })];
   if (dev) children.push(startTs('scripts/vite-dev.ts', env));
   started.push(() => children.forEach((c) => c.exitCode === null && c.kill('SIGTERM')));
-  await waitForPort(PORTS.app, 30_000);
+  await waitForPort(PORTS.app, 120_000); // a busy machine loads the server's TypeScript slowly
 
   const accounts = DEMO_ACCOUNTS.map((a) => `    ${a.username.padEnd(11)} ${a.role.padEnd(11)} ${a.name}`).join('\n');
   console.log(`
