@@ -20,11 +20,11 @@ const board: LockoutDto = {
   lockBox: null, verification: null, isolated: false, missing: ['1 of 2 isolation points have no lock: HV-2.'], removedLocks: [], myLocks: [],
 };
 
-function serve(me: { id: string; name: string; roles: string[] }) {
+function serve(me: { id: string; name: string; roles: string[] }, answer: LockoutDto = board) {
   const calls: { url: string; init?: RequestInit }[] = [];
   vi.stubGlobal('fetch', vi.fn(async (url: string, init?: RequestInit) => {
     calls.push({ url, init });
-    const body = url === '/api/me' ? { ...me, email: null } : board;
+    const body = url === '/api/me' ? { ...me, email: null } : answer;
     return new Response(JSON.stringify(body), { status: 200, headers: { 'content-type': 'application/json' } });
   }));
   return calls;
@@ -60,5 +60,14 @@ describe('the lock board card', () => {
     expect(screen.getByText(/Not protected yet: HV-2/)).toBeTruthy();
     fireEvent.click(screen.getByRole('button', { name: 'Take over at shift change' }));
     expect(screen.getByLabelText('Your lock on HV-1, beside Ben Wu’s lock B-7')).toBeTruthy();
+  });
+
+  it('after the locks came off for the test, a point without a lock is shown plainly, not as unprotected', async () => {
+    const off = { ...board.points[1]!, tag: 'HV-3' };
+    serve({ ...ann, roles: ['operations'] }, { ...board, state: 'testing', points: [off], missing: [] });
+    render(<QueryClientProvider client={queryClient}><LockBoardCard orderId="wo-1" /></QueryClientProvider>);
+    await screen.findByText('HV-3');
+    expect(screen.getByText('No lock: off for the test')).toBeTruthy();
+    expect(screen.queryByText(/not protected/)).toBeNull();
   });
 });

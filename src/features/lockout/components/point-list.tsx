@@ -6,8 +6,15 @@ import { LockLine } from '@/features/lockout/components/lock-line';
 const KIND_WORDS: Record<string, string> = { valve: 'Valve', blind: 'Blind', disconnect: 'Disconnect', drain: 'Drain', vent: 'Vent' };
 type Powers = { mayRemoveAbsent: boolean; workOpen: boolean };
 
+/** Where locks must be on (or are about to go on): a point without one is a danger there, and nowhere else. */
+const LOCKS_NEEDED: readonly string[] = ['planned', 'isolated', 'in-work', 'curing'];
+
 /** Marked in words and a sign, not by colour alone. */
-function Protection({ point, boxLabel }: { point: LockoutPoint; boxLabel?: string }) {
+function Protection({ point, boxLabel, state }: { point: LockoutPoint; boxLabel?: string; state: string }) {
+  if (!point.protected && !LOCKS_NEEDED.includes(state)) {
+    // the locks came off for the test ((f)(1)) or at the release: expected, not alarming
+    return <span className="inline-flex items-center gap-1 rounded-full border border-ink/25 bg-paper-sunk px-2.5 py-0.5 text-sm font-medium text-ink"><span aria-hidden>○</span> {state === 'testing' ? 'No lock: off for the test' : 'No lock'}</span>;
+  }
   if (!point.protected) {
     return <span className="inline-flex items-center gap-1 rounded-full border border-refuse/50 bg-refuse-light px-2.5 py-0.5 text-sm font-semibold text-refuse"><span aria-hidden>×</span> No lock: not protected</span>;
   }
@@ -24,14 +31,14 @@ export function PointList({ board, ...powers }: { board: LockoutDto } & Powers) 
   return (
     <ul className="space-y-2" aria-label="Isolation points">
       {board.points.map((p) => (
-        <li key={p.entryId} className={`rounded-lg border p-3 ${p.protected ? 'border-ink/10 bg-paper' : 'border-refuse/50 border-l-4 bg-refuse-light/40'}`}>
+        <li key={p.entryId} className={`rounded-lg border p-3 ${p.protected || !LOCKS_NEEDED.includes(board.state) ? 'border-ink/10 bg-paper' : 'border-refuse/50 border-l-4 bg-refuse-light/40'}`}>
           <div className="flex flex-wrap items-center justify-between gap-2">
             <p>
               <span className="font-semibold">{p.tag}</span>
               <span className="text-sm text-ink-soft"> · {KIND_WORDS[p.kind] ?? p.kind} on {p.lineNumber} · must be {p.requiredPosition}</span>
               {p.positionFound && <span className="text-sm text-ink-soft"> · found {p.positionFound}</span>}
             </p>
-            <Protection point={p} boxLabel={boxLabel} />
+            <Protection point={p} boxLabel={boxLabel} state={board.state} />
           </div>
           {p.lockBoxId && p.locks.length === 0 && (
             <p className="mt-1 text-sm text-ink-soft">Its key is in the lock box; the locks on the box protect it.</p>
