@@ -261,34 +261,74 @@ async function workThrough(orderId: string, line: Line, people: { planner: Me; r
   }
   for (const j of joints) for (const step of steps) await record(j.id, step);
   if (until === 'curing') return;
-  // Made before loading: every hold moved back so the last ran out CURED_AGO_MIN ago, then lifted as the sweep would.
-  const curedAt = from.getTime() - CURED_AGO_MIN[until]! * 60_000;
-  const running = await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } });
-  const back = Math.max(...running.map((h) => h.endsAt!.getTime())) - curedAt;
-  for (const h of running) await h.update({ startsAt: new Date(h.startsAt.getTime() - back), endsAt: new Date(h.endsAt!.getTime() - back) });
-  await liftDueHolds();
-  if (until === 'testing') return;
-  const board = await lockoutBoard(orderId, fitter.id);
-  for (const l of board.myLocks) await sequelize.transaction((t) => removeLock(fitter, l.id, {}, t));
   const order = (await WorkOrder.findByPk(orderId))!;
-  const testPsi = compute(await loadFacts(orderId)).testPressure.testPsi ?? 0;
-  await sequelize.transaction((t) => recordPressureTest(people.requester, orderId, {
-    toolsClear: true, peopleClear: true, medium: 'water', testPressurePsi: testPsi, gauge: 'PI-T2, 0–400 psi, calibrated 2026-10',
-    startedAt: new Date(curedAt + 20 * 60_000).toISOString(), startReadingPsi: testPsi, endedAt: new Date(curedAt + 40 * 60_000).toISOString(), endReadingPsi: testPsi,
-    result: 'passed', leakingJointIds: [], pipingIdentified: `${line.lineNumber}, the repaired run between its isolation points (${order.number})`, examiner: 'Rafe Adeyemi, plant inspector',
-  }, t));
-  if (until === 'ready') return;
   if (until === 'closed') {
     for (const j of joints) for (const step of ['depth-marks', 'wipe'] as const) {
       const picture = await demoPhoto(`${order.number} J${j.number} ${step === 'wipe' ? 'finished joint' : 'depth marks'} (demo picture)`);
       await sequelize.transaction((t) => storePhoto(fitter, j.id, step, picture, t));
     }
   }
-  await releaseOrder(people.requester, orderId, {
-    areaInspected: true, peopleClear: true, affectedTold: true, ventsDrainsSet: true, slowRefill: true,
-    notes: 'Refilled over twenty minutes from the header drain valve, vented at the high point; no weep at the new joints after an hour at pressure.',
-  });
+  // Made before loading: every hold moved back so the last ran out CURED_AGO_MIN ago, then lifted as the sweep would.
+  const curedAt = from.getTime() - CURED_AGO_MIN[until]! * 60_000;
+  const running = await Hold.findAll({ where: { workOrderId: orderId, status: 'running' } });
+  const back = Math.max(...running.map((h) => h.endsAt!.getTime())) - curedAt;
+  for (const h of running) await h.update({ startsAt: new Date(h.startsAt.getTime() - back), endsAt: new Date(h.endsAt!.getTime() - back) });
+  await liftDueHolds();
+  const locksOffAt = now();
+  if (until !== 'testing') {
+    const board = await lockoutBoard(orderId, fitter.id);
+    for (const l of board.myLocks) await sequelize.transaction((t) => removeLock(fitter, l.id, {}, t));
+  }
+  const testAt = now();
+  if (until !== 'testing') {
+    const testPsi = compute(await loadFacts(orderId)).testPressure.testPsi ?? 0;
+    await sequelize.transaction((t) => recordPressureTest(people.requester, orderId, {
+      toolsClear: true, peopleClear: true, medium: 'water', testPressurePsi: testPsi, gauge: 'PI-T2, 0–400 psi, calibrated 2026-10',
+      startedAt: new Date(curedAt + 20 * 60_000).toISOString(), startReadingPsi: testPsi, endedAt: new Date(curedAt + 40 * 60_000).toISOString(), endReadingPsi: testPsi,
+      result: 'passed', leakingJointIds: [], pipingIdentified: `${line.lineNumber}, the repaired run between its isolation points (${order.number})`, examiner: 'Rafe Adeyemi, plant inspector',
+    }, t));
+  }
+  if (until === 'released' || until === 'closed') {
+    await releaseOrder(people.requester, orderId, {
+      areaInspected: true, peopleClear: true, affectedTold: true, ventsDrainsSet: true, slowRefill: true,
+      notes: 'Refilled over twenty minutes from the header drain valve, vented at the high point; no weep at the new joints after an hour at pressure.',
+    });
+  }
   if (until === 'closed') await closeOrder(people.planner, orderId);
+  // The record reads in the order it happened: the work before the cure, the locks off ten minutes after it, the test and release after that.
+  await backdate(orderId, [
+    { until: locksOffAt, by: back },
+    { until: testAt, by: locksOffAt.getTime() - (curedAt + 10 * 60_000) },
+    { until: null, by: testAt.getTime() - (curedAt + 45 * 60_000) },
+  ]);
+}
+
+/**
+ * Moves every moment the services wrote for a demo order made "before loading" back in time:
+ * a moment before `until` of the first phase by its `by` milliseconds, and so on (the last phase's
+ * `until` is null). The holds keep the ends already given them; the sweep ended them at those ends.
+ * The audit log is append-only and keeps the moments the loader wrote each entry.
+ */
+async function backdate(orderId: string, phases: { until: Date | null; by: number }[]): Promise<void> {
+  const shift = (col: string) => `${col} - (case ${phases.map((p, i) => (p.until ? `when ${col} < :until${i} then interval '1 millisecond' * :by${i}` : `else interval '1 millisecond' * :by${i}`)).join(' ')} end)`;
+  const set = (cols: string[]) => cols.map((c) => `${c} = ${shift(c)}`).join(', ');
+  const tasks = 'select id from joint_tasks where work_order_id = :orderId';
+  const statements = [
+    `update work_orders set ${set(['created_at', 'planned_at', 'updated_at'])}, released_at = ${shift('released_at')} where id = :orderId`,
+    `update joint_tasks set ${set(['created_at', 'updated_at'])} where work_order_id = :orderId`,
+    `update isolation_plan_entries set ${set(['created_at'])} where work_order_id = :orderId`,
+    `update locks set ${set(['applied_at'])}, removed_at = ${shift('removed_at')} where work_order_id = :orderId`,
+    `update isolation_verifications set ${set(['verified_at'])}, superseded_at = ${shift('superseded_at')} where work_order_id = :orderId`,
+    `update joint_steps set ${set(['recorded_at'])} where joint_task_id in (${tasks})`,
+    `update photos set ${set(['created_at'])} where joint_task_id in (${tasks})`,
+    `update holds set ${set(['created_at'])}, ended_at = ends_at where work_order_id = :orderId and status = 'ended'`,
+    `update pressure_tests set ${set(['recorded_at'])} where work_order_id = :orderId`,
+    `update releases set ${set(['released_at'])} where work_order_id = :orderId`,
+  ];
+  const replacements = Object.fromEntries([['orderId', orderId], ...phases.flatMap((p, i) => [[`until${i}`, p.until], [`by${i}`, p.by]])]);
+  await sequelize.transaction(async (transaction) => {
+    for (const sql of statements) await sequelize.query(sql, { replacements, transaction });
+  });
 }
 
 export interface DemoOrdersResult {

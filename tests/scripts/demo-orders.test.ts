@@ -1,5 +1,6 @@
 import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AuditEntry } from '@server/db/models/audit-entry';
 import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { JointTask } from '@server/db/models/joint-task';
 import { Line } from '@server/db/models/line';
@@ -10,7 +11,8 @@ import { WorkOrder } from '@server/db/models/work-order';
 import { closeQueues } from '@server/queues/connection';
 import { getOrder } from '@server/services/work-orders/order-dto';
 import { confirmImport, uploadImport } from '@server/services/line-imports/import-service';
-import { Release } from '@server/db/models/release';
+import { PressureTest, Release } from '@server/db/models/release';
+import { Lock } from '@server/db/models/lockout';
 import { WorkOrderLine } from '@server/db/models/work-order';
 import { orderRecordGaps } from '@server/services/record/completeness';
 import { WORK_ORDER_STATES } from '@shared/schemas/work-orders';
@@ -96,9 +98,23 @@ describe('the demo plant\'s work orders', () => {
     const closed = await of('closed');
     expect(await orderRecordGaps(closed.id)).toEqual([]);
     expect(await Photo.count({ where: { jointTaskId: { [Op.in]: await taskIds(closed.id) } } })).toBe(2); // depth marks and the finished joint
+    // its record reads in the order things happened: steps, then the cure, then locks off, the test and the release
+    const lastStep = Math.max(...(await JointStepRecord.findAll({ where: { jointTaskId: { [Op.in]: await taskIds(closed.id) } } })).map((r) => r.recordedAt.getTime()));
+    const holds = await Hold.findAll({ where: { workOrderId: closed.id } });
+    const cureEnd = Math.max(...holds.map((h) => h.endedAt!.getTime()));
+    const locksOff = Math.max(...(await Lock.findAll({ where: { workOrderId: closed.id } })).map((l) => l.removedAt!.getTime()));
+    const test = (await PressureTest.findOne({ where: { workOrderId: closed.id } }))!;
+    const released = (await Release.findOne({ where: { workOrderId: closed.id } }))!.releasedAt.getTime();
+    expect(lastStep).toBeLessThanOrEqual(Math.min(...holds.map((h) => h.startsAt.getTime())) + 1000);
+    expect(cureEnd).toBeLessThan(locksOff);
+    expect(locksOff).toBeLessThan(test.startedAt.getTime());
+    expect(test.endedAt.getTime()).toBeLessThan(released);
+    expect(released).toBeLessThan(Date.now() - 24 * 3_600_000); // days ago, as its window was
   });
 
   it('have their windows in the days after they were loaded', async () => {
+    // the moment of loading (an order made "before loading" has its own moments moved back)
+    const loadedAt = (await AuditEntry.findOne({ where: { action: 'demo-orders-loaded' } }))!.at.getTime();
     for (const spec of DEMO_ORDERS) {
       const order = (await WorkOrder.findOne({ where: { scope: spec.scope } }))!;
       if (!spec.window) {
@@ -107,9 +123,9 @@ describe('the demo plant\'s work orders', () => {
       }
       if (spec.window.fromLoad) {
         // An order under way: its window is open at the moment of loading; a closed one's has ended.
-        expect(order.windowStart!.getTime(), spec.scope).toBeLessThan(order.createdAt.getTime());
-        if (spec.state === 'closed') expect(order.windowEnd!.getTime(), spec.scope).toBeLessThan(order.createdAt.getTime());
-        else expect(order.windowEnd!.getTime(), spec.scope).toBeGreaterThan(order.createdAt.getTime());
+        expect(order.windowStart!.getTime(), spec.scope).toBeLessThan(loadedAt);
+        if (spec.state === 'closed') expect(order.windowEnd!.getTime(), spec.scope).toBeLessThan(loadedAt);
+        else expect(order.windowEnd!.getTime(), spec.scope).toBeGreaterThan(loadedAt);
         continue;
       }
       const daysAhead = (order.windowStart!.getTime() - order.createdAt.getTime()) / 86_400_000;
