@@ -9,14 +9,14 @@ import { plannableOrder, plantForWorkOrders } from '../helpers/work-orders';
 
 const users = useTestApp({ signIn: ['admin', 'planner'], before: plantForWorkOrders });
 afterEach(plantForWorkOrders);
-const reset = () => PlantSetting.update({ windowPlan: {}, timeZone: null }, { where: { id: 1 } });
+const reset = () => PlantSetting.update({ windowPlan: {}, timeZone: null, lockLeftOnMinutes: null }, { where: { id: 1 } });
 
 describe('the window-plan settings', () => {
   it('every default is marked as a default, and so is the time zone until one is set', async () => {
     await reset();
     const res = await users.planner.get('/api/plant-settings');
     expect(res.body).toMatchObject({ timeZone: 'UTC', windowPlan: WINDOW_PLAN_DEFAULTS });
-    expect(res.body.atDefault).toEqual(['timeZone', ...Object.keys(WINDOW_PLAN_DEFAULTS).map((k) => `windowPlan.${k}`)]);
+    expect(res.body.atDefault).toEqual(['timeZone', ...Object.keys(WINDOW_PLAN_DEFAULTS).map((k) => `windowPlan.${k}`), 'lockLeftOnMinutes']);
   });
 
   it("an admin sets the plant's own minutes and time zone: written, audited, no longer marked, and the window plan uses them", async () => {
@@ -26,7 +26,7 @@ describe('the window-plan settings', () => {
     });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ timeZone: 'America/Denver', windowPlan: { ...WINDOW_PLAN_DEFAULTS, isolationPerOrderMinutes: 60, releaseMinutes: 90 } });
-    expect(res.body.atDefault).toEqual(['windowPlan.isolationPerPointMinutes', 'windowPlan.jointMinutesBySize', 'windowPlan.fillAndVentMinutes']);
+    expect(res.body.atDefault).toEqual(['windowPlan.isolationPerPointMinutes', 'windowPlan.jointMinutesBySize', 'windowPlan.fillAndVentMinutes', 'lockLeftOnMinutes']);
     expect(await PlantSetting.findByPk(1)).toMatchObject({ timeZone: 'America/Denver', windowPlan: { isolationPerOrderMinutes: 60, releaseMinutes: 90 } });
     const audit = await AuditEntry.findOne({ where: { action: 'plant-settings-set' }, order: [['id', 'DESC']] });
     expect(audit?.after).toMatchObject({ timeZone: 'America/Denver', windowPlan: { isolationPerOrderMinutes: 60, releaseMinutes: 90 } });

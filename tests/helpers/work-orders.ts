@@ -4,7 +4,7 @@ import type { Browserless } from './browserless';
 
 /** The plant as these tests expect it: schedule A, the stricter test cap, the default window-plan minutes, Chicago time. */
 export const plantForWorkOrders = () =>
-  PlantSetting.update({ cureScheduleId: 'A', testCap: 'rating', windowPlan: {}, timeZone: 'America/Chicago', updatedById: null }, { where: { id: 1 } });
+  PlantSetting.update({ cureScheduleId: 'A', testCap: 'rating', windowPlan: {}, timeZone: 'America/Chicago', lockLeftOnMinutes: null, updatedById: null }, { where: { id: 1 } });
 
 /** A window of `hours` from `start` (an ISO instant with its offset). */
 export function windowOf(start: string, hours: number): { windowStart: string; windowEnd: string } {
