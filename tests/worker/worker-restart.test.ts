@@ -47,8 +47,16 @@ describe('a worker process', () => {
   }, 60_000);
 
   it('stops cleanly on SIGTERM', async () => {
-    const worker = startWorker();
-    await new Promise((r) => setTimeout(r, 3000));
+    // its log says when it is up (its signal handlers are on by then): a loaded machine may take many seconds to load it
+    const worker = spawn(process.execPath, ['--import', 'tsx', 'worker/index.ts'], { env: { ...process.env, LW_PROCESS: 'worker', LOG_LEVEL: 'info' }, stdio: ['ignore', 'pipe', 'ignore'] });
+    children.push(worker);
+    await new Promise<void>((resolve) => {
+      let out = '';
+      worker.stdout!.on('data', (d) => {
+        out += d;
+        if (out.includes('Linewright worker started')) resolve();
+      });
+    });
     worker.kill('SIGTERM');
     expect(await exited(worker)).toBe(0);
   }, 30_000);
