@@ -1,14 +1,15 @@
 import path from 'node:path';
 import { existsSync } from 'node:fs';
-import connectPgSimple from 'connect-pg-simple';
+import compression from 'compression';
 import express from 'express';
-import session from 'express-session';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { config } from '@server/config';
 import { errorHandler, notFound } from '@server/middleware/error-handler';
 import { sameOrigin } from '@server/middleware/same-origin';
 import { limitPerAddress } from '@server/middleware/rate-limit';
 import { requireSignIn } from '@server/middleware/auth';
+import { sessions } from '@server/middleware/session';
 import { authRoutes } from '@server/routes/auth-routes';
 import { meRoutes } from '@server/routes/me-routes';
 import { peopleRoutes } from '@server/routes/people-routes';
@@ -29,8 +30,6 @@ import { holdRoutes, orderTemperatureLogRoutes, temperatureLogRoutes } from '@se
 import { orderRecordRoutes } from '@server/routes/record-routes';
 import { lineStatusRoutes, orderReleaseRoutes, releaseQueueRoutes } from '@server/routes/release-routes';
 
-const PgStore = connectPgSimple(session);
-
 export interface AppOptions {
   /** Sign-in starts and callbacks per client address and minute, and the Redis that counts them (tests change them). */
   signInLimit?: { perMinute: number; redisUrl: string };
@@ -42,6 +41,41 @@ const noStore: express.RequestHandler = (_req, res, next) => {
   next();
 };
 
+/** Hashed build output: a new build has new names, so a browser may keep these for good. */
+const HASHED = /[/\\]assets[/\\][^/\\]+$/;
+/** The service worker, the page and the manifest must be asked for again, or a new build is never seen. */
+const ASK_AGAIN = /(?:^|[/\\])(?:sw\.js|workbox-[^/\\]*\.js|index\.html|manifest\.webmanifest)(?:\.br|\.gz)?$/;
+
+/**
+ * The built client: each file's pre-compressed `.br` or `.gz` twin (written at build time) when the
+ * browser takes it, brotli first; otherwise the file itself. API and sign-in paths never look on
+ * disk, and a path that does not decode goes on to the routes, which answer it in the error shape.
+ */
+function clientFiles(dist: string): express.RequestHandler {
+  const files = expressStaticGzip(dist, {
+    index: false, // the page comes from the SPA fallback below, like any other path
+    enableBrotli: true,
+    orderPreference: ['br', 'gzip'],
+    serveStatic: {
+      index: false,
+      maxAge: '1h',
+      setHeaders: (res, file) => {
+        if (ASK_AGAIN.test(file)) res.setHeader('Cache-Control', 'no-cache');
+        else if (HASHED.test(file)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+      },
+    },
+  });
+  return (req, res, next) => {
+    if ((req.method !== 'GET' && req.method !== 'HEAD') || /^\/(?:api|auth)(?:\/|$)/.test(req.path)) return next();
+    try {
+      decodeURIComponent(req.path);
+    } catch {
+      return next();
+    }
+    return files(req, res, next);
+  };
+}
+
 /** Builds the Express app: middleware and routers. It never listens; server/index.ts does. */
 export function createApp(opts: AppOptions = {}) {
   const app = express();
@@ -50,6 +84,12 @@ export function createApp(opts: AppOptions = {}) {
   app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
   app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
+  // Answers made per request (JSON, the CSV export, the page) are compressed on the fly: brotli at
+  // quality 4 (compression's default, fast enough per request), gzip level 6 for browsers without
+  // brotli; small answers are not worth it. Photos and PDFs are already compressed and their types
+  // are not "compressible" (mime-db), and the client's pre-compressed files carry their own
+  // Content-Encoding, so neither is compressed again.
+  app.use(compression({ threshold: 1024 }));
   app.use(['/api', '/auth'], noStore);
   app.use(['/auth/login', '/auth/callback'], signInLimit); // before the session: a refused start stores nothing
 
@@ -58,25 +98,10 @@ export function createApp(opts: AppOptions = {}) {
   const dist = path.resolve(config.clientDist);
   const hasClient = existsSync(path.join(dist, 'index.html'));
   if (hasClient) {
-    app.use(express.static(dist, {
-      index: false,
-      maxAge: '1h',
-      // the service worker and the page must be asked for again, or a new build is never seen
-      setHeaders: (res, file) => { if (/(?:^|[/\\])(?:sw\.js|workbox-[^/\\]*\.js|index\.html|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache'); },
-    }));
+    app.use(clientFiles(dist));
     app.use('/assets', notFound); // a missing script or style is a 404, never the app's page
   }
-  app.use(
-    session({
-      name: 'lw.sid', // its own name: on loopback the sign-in fake's cookies share the host
-      store: new PgStore({ conString: config.databaseUrl, tableName: 'user_sessions', createTableIfMissing: false }),
-      secret: config.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
-    }),
-  );
+  app.use(sessions(config.databaseUrl, config.sessionSecret));
 
   app.use('/api/health', healthRoutes);
   app.use('/api/openapi.json', openApiRoutes); // public: the API's shape, no data

@@ -5,6 +5,7 @@
 import { recoverStalledImports } from '@server/services/line-imports/recovery';
 import { liftDueHolds } from '@server/services/holds/lift';
 import { watchLeftLocks, watchWindows } from '@server/services/holds/watches';
+import { pruneChangeLog } from '@server/db/change-log';
 
 export interface Sweep {
   name: string;
@@ -17,4 +18,5 @@ export const SWEEPS: readonly Sweep[] = [
   { name: 'hold-lifts', run: () => liftDueHolds().then((r) => ({ ...r })) },
   { name: 'window-watch', run: () => watchWindows().then((r) => ({ ...r })) },
   { name: 'lock-left-on-watch', run: () => watchLeftLocks().then((r) => ({ ...r })) },
+  { name: 'change-log-prune', run: async () => { await pruneChangeLog(); } },
 ];

@@ -1,12 +1,14 @@
 import type { RequestHandler } from 'express';
 import { AppError } from '@server/errors';
-import { currentPerson } from '@server/services/people-service';
+import { currentPerson, toMe } from '@server/services/people-service';
 import { may, refusalFor, type Action } from '@shared/permissions';
 import type { Me } from '@shared/schemas/roles';
 
 declare module 'express-session' {
   interface SessionData {
     personId?: string;
+    /** When the expiry was last extended (server/middleware/session.ts): changing it is what saves the session. */
+    extendedAt?: number;
     signIn?: { state: string; nonce: string; codeVerifier: string; returnTo: string };
   }
 }
@@ -20,9 +22,15 @@ declare global {
   }
 }
 
-/** Loads the signed-in person fresh from the database, so a withdrawn role ends at once. */
+/**
+ * The signed-in person, fresh from the database on every request so a withdrawn role ends at once:
+ * read with the session itself (server/db/session-store.ts), or looked up when the session did not
+ * come from the store on this request.
+ */
 export const requireSignIn: RequestHandler = async (req, res, next) => {
-  const me = req.session.personId ? await currentPerson(req.session.personId) : null;
+  const id = req.session.personId;
+  const read = req.sessionPerson;
+  const me = !id ? null : read?.id === id ? toMe(read) : await currentPerson(id);
   if (!me) throw AppError.unauthenticated();
   res.locals.me = me;
   next();

@@ -1,6 +1,7 @@
 import { Line } from '@server/db/models/line';
 import { IsolationPoint } from '@server/db/models/isolation-point';
-import { countLines, linePage, registerFacets, type LineAttributes } from '@server/db/queries/lines';
+import { untilChanged } from '@server/db/change-log';
+import { linePage, registerTotals, type LineAttributes, type LineMatch } from '@server/db/queries/lines';
 import { AppError } from '@server/errors';
 import type { LineDetailDto, LineDto, LineListQuery, LineListResponse } from '@shared/schemas/lines';
 
@@ -25,9 +26,17 @@ export function toLineDto(line: LineAttributes, isolationPointCount?: number, op
   };
 }
 
-/** One page of the register: a count, the page itself, isolation points counted for that page only. */
+/**
+ * One page of the register: a count, the page itself, isolation points counted for that page only.
+ * The count and facets are computed once per filter and register version (an import or a status
+ * change makes a new one), so paging and repeating a search cost only the page.
+ */
 export async function listLines(q: LineListQuery): Promise<LineListResponse> {
-  const [total, rows, facets] = await Promise.all([countLines(q), linePage(q), registerFacets()]);
+  const filters: LineMatch = { area: q.area, material: q.material, status: q.status, size: q.size, search: q.search };
+  const [{ total, facets }, rows] = await Promise.all([
+    untilChanged(`lines:${JSON.stringify(filters)}`, ['lines'], () => registerTotals(filters)),
+    linePage(q),
+  ]);
   return { rows: rows.map((r) => toLineDto(r, r.isolationPointCount, r.openWorkOrders)), total, page: q.page, pageSize: q.pageSize, facets };
 }
 

@@ -11,7 +11,7 @@ export function effectiveRoles(p: Pick<Person, 'rolesFromIdp' | 'rolesGranted' |
   return ROLES.filter((r) => held.has(r));
 }
 
-function toMe(p: Person): Me {
+export function toMe(p: Pick<Person, 'id' | 'name' | 'email' | 'rolesFromIdp' | 'rolesGranted' | 'rolesWithdrawn'>): Me {
   return { id: p.id, name: p.name, email: p.email, roles: effectiveRoles(p) };
 }
 

@@ -1,4 +1,4 @@
-import { existsSync } from 'node:fs';
+import { existsSync, readdirSync } from 'node:fs';
 import { request as httpRequest } from 'node:http';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -11,6 +11,7 @@ import { SIGN_IN_PENDING_MS } from '@server/routes/auth-routes';
 import { apiErrorSchema } from '@shared/schemas/errors';
 import { useTestApp } from '../helpers/app';
 import { APP, Browserless } from '../helpers/browserless';
+import { makeLines, uniquePrefix } from '../helpers/line-rows';
 import { TEST_PORTS } from '../helpers/ports';
 
 const users = useTestApp({ signIn: ['planner', 'fitter', 'admin'] });
@@ -136,3 +137,43 @@ describe('answers that must not be kept', () => {
     expect((await raw({ method: 'GET', path: '/lines' })).status).toBe(200);
   });
 });
+
+describe('answers and the client’s files travel compressed', () => {
+  const assetWithTwins = () => {
+    const dir = path.join(config.clientDist, 'assets');
+    if (!existsSync(dir)) throw new Error(`no client build in ${config.clientDist}: run vite build first`);
+    const file = readdirSync(dir).find((f) => f.endsWith('.js') && existsSync(path.join(dir, `${f}.br`)) && existsSync(path.join(dir, `${f}.gz`)));
+    if (!file) throw new Error('the client build has no pre-compressed scripts');
+    return `/assets/${file}`;
+  };
+
+  it('a list is sent with brotli to a browser that takes it, gzip to one that takes only gzip, and as is otherwise', async () => {
+    await makeLines(uniquePrefix('BR'), Array.from({ length: 30 }, () => ({})));
+    const as = (encoding: string) => users.planner.raw('/api/lines?pageSize=50', { headers: { 'accept-encoding': encoding } });
+    const br = await as('gzip, deflate, br');
+    expect(br.headers.get('content-encoding')).toBe('br');
+    expect((await br.json()).rows).toHaveLength(50);
+    expect((await as('gzip')).headers.get('content-encoding')).toBe('gzip');
+    expect((await as('identity')).headers.get('content-encoding')).toBeNull();
+    // a few hundred bytes are not worth compressing
+    expect((await users.planner.raw('/api/me', { headers: { 'accept-encoding': 'br' } })).headers.get('content-encoding')).toBeNull();
+  });
+
+  it('a hashed script comes from its pre-compressed twin, brotli first, kept for a year; the page and the service worker are asked for again', async () => {
+    const asset = assetWithTwins();
+    const br = await fetch(`${APP}${asset}`, { headers: { 'accept-encoding': 'gzip, br' } });
+    expect(br.status).toBe(200);
+    expect(br.headers.get('content-encoding')).toBe('br');
+    expect(br.headers.get('content-type')).toMatch(/javascript/);
+    expect(br.headers.get('cache-control')).toContain('max-age=31536000, immutable');
+    const gz = await fetch(`${APP}${asset}`, { headers: { 'accept-encoding': 'gzip' } });
+    expect(gz.headers.get('content-encoding')).toBe('gzip');
+    expect(await gz.text()).toBe(await br.text());
+    for (const page of ['/', '/lines', '/sw.js', '/manifest.webmanifest']) {
+      const res = await fetch(`${APP}${page}`, { headers: { 'accept-encoding': 'br' } });
+      expect(res.status, page).toBe(200);
+      expect(res.headers.get('cache-control'), page).toBe('no-cache');
+    }
+  });
+});
+

@@ -1,5 +1,8 @@
+import { QueryTypes } from 'sequelize';
 import { describe, expect, it } from 'vitest';
+import { sequelize } from '@server/db/sequelize';
 import { Person } from '@server/db/models/person';
+import { SESSION_EXTEND_AFTER_MS, SESSION_IDLE_MS } from '@server/middleware/session';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
@@ -72,5 +75,55 @@ describe('signing in through the identity provider', () => {
     const res = await b.json('PUT', `/api/people/${me.body.id}/roles`, { roles: ['admin'] }, { origin: 'http://evil.invalid' });
     expect(res.status).toBe(403);
     expect(res.body.error.message).toMatch(/may not change/);
+  });
+});
+
+describe('a signed-in session costs one read a request, and a write only every few minutes', () => {
+  const sidOf = (b: Browserless) => decodeURIComponent(b.cookie('lw.sid')!).replace(/^s:/, '').split('.')[0]!;
+  const expiryOf = async (sid: string) => {
+    const [row] = await sequelize.query<{ expire: Date }>('select expire from user_sessions where sid = $1', { bind: [sid], type: QueryTypes.SELECT });
+    return row ? new Date(row.expire).getTime() : null;
+  };
+  /** Moves the session's stored expiry back by `ms`, as if it had last been extended that long ago. */
+  const ageSession = (sid: string, ms: number) =>
+    sequelize.query(
+      `update user_sessions set expire = expire - $2 * interval '1 millisecond',
+              sess = jsonb_set(sess::jsonb, '{cookie,expires}', to_jsonb(to_char((expire - $2 * interval '1 millisecond') at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')))::json
+        where sid = $1`,
+      { bind: [sid, ms] },
+    );
+
+  it('requests within a few minutes of sign-in neither write the session nor send its cookie again', async () => {
+    const b = await signedIn('planner');
+    const sid = sidOf(b);
+    const expiry = await expiryOf(sid);
+    for (let i = 0; i < 3; i++) {
+      const res = await b.raw('/api/me');
+      expect(res.status).toBe(200);
+      expect(res.headers.getSetCookie().filter((c) => c.startsWith('lw.sid='))).toEqual([]);
+    }
+    expect(await expiryOf(sid)).toBe(expiry);
+  });
+
+  it('once its expiry was set more than five minutes ago, the next request extends it to twelve hours and re-sends the cookie', async () => {
+    const b = await signedIn('planner');
+    const sid = sidOf(b);
+    await ageSession(sid, SESSION_EXTEND_AFTER_MS + 60_000);
+    const res = await b.raw('/api/me');
+    expect(res.status).toBe(200);
+    const cookie = res.headers.getSetCookie().find((c) => c.startsWith('lw.sid='));
+    expect(cookie).toMatch(/Expires=/);
+    const left = (await expiryOf(sid))! - Date.now();
+    expect(left).toBeGreaterThan(SESSION_IDLE_MS - 60_000);
+    expect(left).toBeLessThanOrEqual(SESSION_IDLE_MS + 5_000);
+    expect((await b.raw('/api/me')).headers.getSetCookie()).toEqual([]); // extended: quiet again
+  });
+
+  it('a session idle for twelve hours has ended: 401, and the person must sign in again', async () => {
+    const b = await signedIn('planner');
+    await ageSession(sidOf(b), SESSION_IDLE_MS + 1_000);
+    const res = await b.get('/api/me');
+    expect(res.status).toBe(401);
+    expect(res.body).toEqual({ error: { code: 'unauthenticated', message: 'Sign in to continue.' } });
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { Op } from 'sequelize';
+import { sequelize } from '@server/db/sequelize';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { WorkOrder, WorkOrderLine } from '@server/db/models/work-order';
 import { workOrderListResponseSchema, workOrderSchema } from '@shared/schemas/work-orders';
@@ -189,5 +190,31 @@ describe('reading work orders', () => {
     expect(row).toMatchObject({ jointCount: 1, lines: [{ lineNumber: lines[1]!.lineNumber, area: `${p} area` }], windowStart: '2027-05-10T08:00:00.000Z' });
     expect((await users.fitter.get('/api/work-orders?state=nearly')).status).toBe(400);
     expect(await WorkOrder.count({ where: { number: { [Op.in]: [a.number, b.number, c.number] } } })).toBe(3);
+  });
+
+  it('the list total follows a new order, a state change, a fitter or an area change at once, even one written outside this process', async () => {
+    const p = uniquePrefix('TOTAL');
+    const lines = await makeLines(p, [{}, {}]);
+    const total = async (q: string) => {
+      const res = await users.planner.get(`/api/work-orders?area=${encodeURIComponent(`${p} area`)}&${q}`);
+      expect(res.status, q).toBe(200);
+      return workOrderListResponseSchema.parse(res.body).total;
+    };
+    const a = await createOrder(users.planner, [lines[0]!]);
+    expect(await total('state=draft')).toBe(1);
+    expect(await total('state=draft')).toBe(1); // asked twice: the second answer may be the kept count
+    await createOrder(users.planner, [lines[1]!]);
+    expect(await total('state=draft')).toBe(2);
+    // Another API process or the worker writes through its own connection; so do these updates.
+    await WorkOrder.update({ state: 'planned' }, { where: { id: a.id } });
+    expect(await total('state=draft')).toBe(1);
+    expect(await total('state=planned')).toBe(1);
+    await sequelize.query('update lines set area = $2 where id = $1', { bind: [lines[1]!.id, `${p} moved`] });
+    expect(await total('state=draft')).toBe(0);
+    const fitterId = (await users.fitter.get('/api/me')).body.id as string;
+    expect(await total(`fitter=${fitterId}`)).toBe(0);
+    const [task] = (await users.planner.post(`/api/work-orders/${a.id}/joint-tasks`, { lineId: lines[0]!.id, fittingKind: 'union' })).body;
+    await users.planner.put(`/api/joint-tasks/${task.id}/fitter`, { personId: fitterId });
+    expect(await total(`fitter=${fitterId}`)).toBe(1);
   });
 });

@@ -16,6 +16,7 @@ import { scheduleHoldLift } from '@server/queues/holds';
 import { useTestApp } from '../helpers/app';
 import { TEST_PORTS } from '../helpers/ports';
 import { waitFor } from '../helpers/import-csv';
+import { makeLines, uniquePrefix } from '../helpers/line-rows';
 import { isolatedOrder, recordStepsThrough } from '../helpers/lockout';
 import { mailMentioning } from '../helpers/mail';
 import { plantForWorkOrders } from '../helpers/work-orders';
@@ -86,5 +87,28 @@ describe('two API processes and two workers', () => {
       fetch(`http://127.0.0.1:${port}/api/work-orders/${order.id}/release`, { method: 'POST', headers: { cookie, origin: config.origin, 'content-type': 'application/json' }, body }).then((r) => r.status)));
     expect(statuses.sort()).toEqual([201, 409]);
     expect((await WorkOrder.findByPk(order.id))!.state).toBe('released');
+  }, 30_000);
+
+  it('a withdrawn role ends on the next request to either API process, and a register count kept by one follows a write made elsewhere', async () => {
+    const fitter = (await Person.findOne({ where: { subject: 'fitter' } }))!;
+    const cookie = await sessionCookie(fitter.id);
+    const get = (port: number, p: string) => fetch(`http://127.0.0.1:${port}${p}`, { headers: { cookie } }).then(async (r) => ({ status: r.status, body: await r.json() }));
+    const p = uniquePrefix('TWO');
+    await makeLines(p, [{}]);
+    for (const port of API_PORTS) {
+      expect((await get(port, '/api/me')).body.roles).toContain('fitter');
+      expect((await get(port, `/api/lines?area=${encodeURIComponent(`${p} area`)}`)).body.total).toBe(1);
+    }
+    await makeLines(`${p}-2`, [{ area: `${p} area` }]);
+    for (const port of API_PORTS) expect((await get(port, `/api/lines?area=${encodeURIComponent(`${p} area`)}`)).body.total, String(port)).toBe(2);
+    await Person.update({ rolesWithdrawn: ['fitter'] }, { where: { id: fitter.id } });
+    try {
+      for (const port of API_PORTS) {
+        expect((await get(port, '/api/me')).body.roles, String(port)).toEqual([]);
+        expect((await get(port, '/api/shift')).status, String(port)).toBe(403);
+      }
+    } finally {
+      await Person.update({ rolesWithdrawn: [] }, { where: { id: fitter.id } });
+    }
   }, 30_000);
 });

@@ -202,6 +202,8 @@ export async function writeImportRows(
   );
   const first = range?.first ?? 0;
   const last = range?.last ?? -1;
+  const rebuild = kind === 'lines' && (await isLargeApply(importId, t));
+  if (rebuild) await sequelize.query(LARGE_APPLY_INDEXES.map((i) => `drop index if exists ${i.name};`).join(' '), { transaction: t });
   const statements = kind === 'lines' ? [INSERT_NEW_LINES, UPDATE_CHANGED_LINES] : [UPSERT_POINTS];
   const flags = kind === 'lines' ? [keep.drawingRef, keep.notes] : [keep.notes];
   for (let from = first; from <= last; from += CHUNK_ROWS) {
@@ -212,6 +214,29 @@ export async function writeImportRows(
     }
     await onChunk((from + CHUNK_ROWS - first) / (last - first + 1));
   }
+  if (rebuild) for (const i of LARGE_APPLY_INDEXES) await sequelize.query(i.create, { transaction: t });
+}
+
+/**
+ * The search indexes of the register (migration 20261209000100-list-speed) that a large apply drops
+ * and builds again in one pass, inside its transaction: cheaper than keeping them up row by row, and
+ * the search never sees them missing (other transactions wait for the apply's commit to read lines).
+ */
+const LARGE_APPLY_INDEXES = [
+  { name: 'lines_line_number_trgm_idx', create: 'create index lines_line_number_trgm_idx on lines using gin (line_number gin_trgm_ops)' },
+  { name: 'lines_pressure_idx', create: 'create index lines_pressure_idx on lines (design_pressure_psi)' },
+];
+/** An apply is large when it writes at least this many lines and at least as many as the register holds. */
+const LARGE_APPLY_MIN_ROWS = 5_000;
+
+async function isLargeApply(importId: string, t: Transaction): Promise<boolean> {
+  const [row] = await select<{ writes: string; lines: string }>(
+    `select (select count(*) from line_import_rows where import_id = $1 and outcome in ('new', 'changed')) as writes,
+            (select count(*) from lines) as lines`,
+    [importId], t,
+  );
+  const writes = Number(row?.writes ?? 0);
+  return writes >= LARGE_APPLY_MIN_ROWS && writes >= Number(row?.lines ?? 0);
 }
 
 // ── the sweep ───────────────────────────────────────────────────────────────────────────────────

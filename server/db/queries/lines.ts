@@ -3,6 +3,7 @@
 
 import { QueryTypes, type InferAttributes, type Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
+import type { Snapshotted } from '@server/db/change-log';
 import type { Line } from '@server/db/models/line';
 import { parseNominalSize } from '@shared/trade';
 import type { LineExportQuery, LineListQuery } from '@shared/schemas/lines';
@@ -11,6 +12,8 @@ import { OPEN_WORK_ORDER_STATES } from '@shared/schemas/work-orders';
 /** A line as these queries return it: the model's own attributes, named as the model names them. */
 export type LineAttributes = InferAttributes<Line>;
 export type LineFilters = Omit<LineExportQuery, 'withStatus'>;
+/** What narrows the register, without the order. */
+export type LineMatch = Pick<LineFilters, 'area' | 'material' | 'status' | 'size' | 'search'>;
 
 /** Every column of `lines l` under the model's attribute names. */
 const LINE_COLUMNS = `l.id, l.line_number as "lineNumber", l.area, l.service, l.material, l.schedule, l.sdr,
@@ -36,7 +39,7 @@ export function escapeLike(text: string): string {
 }
 
 /** The WHERE clause of a register query and its bind values ($1, $2, … in order). */
-export function lineWhere(q: LineFilters): { sql: string; bind: unknown[] } {
+export function lineWhere(q: LineMatch): { sql: string; bind: unknown[] } {
   const bind: unknown[] = [];
   const clauses: string[] = [];
   const add = (clause: (n: string) => string, value: unknown) => {
@@ -65,34 +68,36 @@ export function lineOrder(q: Pick<LineFilters, 'sort' | 'dir'>, alias = 'l'): st
 const select = <T extends object>(sql: string, bind: unknown[] = [], transaction?: Transaction) =>
   sequelize.query<T>(sql, { type: QueryTypes.SELECT, bind, transaction });
 
-/**
- * The register's facets: every area and every size in it, whatever the filters. Both walk
- * their index one distinct value at a time (a loose index scan), so 100,000 lines cost ~20 steps each.
- */
-export async function registerFacets(): Promise<{ areas: string[]; sizes: string[] }> {
-  const [areas, sizes] = await Promise.all([
-    select<{ v: string }>(`
-      with recursive a(v) as (
-        select min(area) from lines
-        union all
-        select (select min(area) from lines where area > a.v) from a where a.v is not null
-      ) select v from a where v is not null`),
-    select<{ v: string }>(`
-      with recursive s(inches) as (
-        select min(nominal_size_in) from lines
-        union all
-        select (select min(nominal_size_in) from lines where nominal_size_in > s.inches) from s where s.inches is not null
-      ) select (select nominal_size from lines where nominal_size_in = s.inches limit 1) as v
-        from s where s.inches is not null order by s.inches`),
-  ]);
-  return { areas: areas.map((r) => r.v), sizes: sizes.map((r) => r.v) };
+/** The register's facets (every area and size in it, whatever the filters) and how many lines match. */
+export interface RegisterTotals {
+  total: number;
+  facets: { areas: string[]; sizes: string[] };
 }
 
-/** How many lines match the filters. */
-export async function countLines(q: LineFilters): Promise<number> {
+/**
+ * The count and the facets in one statement, with its snapshot (server/db/change-log.ts keeps them
+ * until the register changes). The facets walk their index one distinct value at a time (a loose
+ * index scan), so 100,000 lines cost ~20 steps each.
+ */
+export async function registerTotals(q: LineMatch): Promise<Snapshotted<RegisterTotals>> {
   const where = lineWhere(q);
-  const [row] = await select<{ total: string }>(`select count(*) as total from lines l ${where.sql}`, where.bind);
-  return Number(row?.total ?? 0);
+  const [row] = await select<{ snapshot: string; total: string; areas: string[]; sizes: string[] }>(
+    `select pg_current_snapshot()::text as snapshot,
+            (select count(*) from lines l ${where.sql}) as total,
+            array(with recursive a(v) as (
+                    select min(area) from lines
+                    union all
+                    select (select min(area) from lines where area > a.v) from a where a.v is not null
+                  ) select v from a where v is not null) as areas,
+            array(with recursive s(inches) as (
+                    select min(nominal_size_in) from lines
+                    union all
+                    select (select min(nominal_size_in) from lines where nominal_size_in > s.inches) from s where s.inches is not null
+                  ) select (select nominal_size from lines where nominal_size_in = s.inches limit 1)
+                      from s where s.inches is not null order by s.inches) as sizes`,
+    where.bind,
+  );
+  return { snapshot: row!.snapshot, value: { total: Number(row!.total), facets: { areas: row!.areas, sizes: row!.sizes } } };
 }
 
 const OPEN_STATES = `array[${OPEN_WORK_ORDER_STATES.map((s) => `'${s}'`).join(', ')}]`;

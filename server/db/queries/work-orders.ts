@@ -4,6 +4,7 @@
 
 import { QueryTypes, type Transaction } from 'sequelize';
 import { sequelize } from '@server/db/sequelize';
+import type { Snapshotted } from '@server/db/change-log';
 import { escapeLike } from '@server/db/queries/lines';
 import { PRIORITIES, WORK_ORDER_STATES, type WorkOrderListQuery, type WorkOrderRow } from '@shared/schemas/work-orders';
 import type { OverlapDto } from '@shared/schemas/work-order-plan';
@@ -40,7 +41,9 @@ function orderWhere(q: WorkOrderListQuery): { sql: string; bind: unknown[] } {
     bind.push(value);
     clauses.push(clause(`$${bind.length}`));
   };
-  if (q.state?.length) add((n) => `o.state = any(${n}::text[])`, q.state);
+  // One state as a plain equality, so the (state, window_start) index gives the list its window order.
+  if (q.state?.length === 1) add((n) => `o.state = ${n}::text`, q.state[0]);
+  else if (q.state?.length) add((n) => `o.state = any(${n}::text[])`, q.state);
   if (q.priority?.length) add((n) => `o.priority = any(${n}::text[])`, q.priority);
   if (q.area?.length) add((n) => `exists (select 1 from work_order_lines wl join lines l on l.id = wl.line_id where wl.work_order_id = o.id and l.area = any(${n}::text[]))`, q.area);
   if (q.line?.length) add((n) => `exists (select 1 from work_order_lines wl join lines l on l.id = wl.line_id where wl.work_order_id = o.id and l.line_number = any(${n}::text[]))`, q.line);
@@ -51,31 +54,39 @@ function orderWhere(q: WorkOrderListQuery): { sql: string; bind: unknown[] } {
   return { sql: clauses.length ? `where ${clauses.join(' and ')}` : '', bind };
 }
 
-export async function countOrders(q: WorkOrderListQuery): Promise<number> {
+/** How many orders match, with the statement's snapshot (server/db/change-log.ts keeps it until an order changes). */
+export async function countOrders(q: WorkOrderListQuery): Promise<Snapshotted<number>> {
   const where = orderWhere(q);
-  const [row] = await select<{ total: string }>(`select count(*) as total from work_orders o ${where.sql}`, where.bind);
-  return Number(row?.total ?? 0);
+  const [row] = await select<{ snapshot: string; total: string }>(
+    `select pg_current_snapshot()::text as snapshot, (select count(*) from work_orders o ${where.sql}) as total`,
+    where.bind,
+  );
+  return { snapshot: row!.snapshot, value: Number(row!.total) };
 }
 
 type RawRow = Omit<WorkOrderRow, 'windowStart' | 'windowEnd' | 'createdAt' | 'updatedAt' | 'jointCount'> & {
   windowStart: Date | null; windowEnd: Date | null; createdAt: Date; updatedAt: Date; jointCount: string;
 };
 
-/** One page of matching orders, each with its lines and joint count (for that page only). Ties fall back to the number. */
+/**
+ * One page of matching orders, each with its lines and joint count (for that page only: the page is
+ * cut first, so the rows skipped by the offset are never counted). Ties fall back to the number.
+ */
 export async function orderPage(q: WorkOrderListQuery): Promise<WorkOrderRow[]> {
   const where = orderWhere(q);
   const n = where.bind.length;
   const dir = q.dir === 'desc' ? 'desc' : 'asc';
   const nulls = q.sort === 'windowStart' ? (dir === 'asc' ? ' nulls last' : ' nulls first') : '';
+  const order = `${SORT_COLUMNS[q.sort]} ${dir}${nulls}, o.number ${dir}`;
   const rows = await select<RawRow>(
     `select o.id, o.number, o.kind, o.priority, o.state, o.scope, o.requested_by as "requestedBy",
             o.window_start as "windowStart", o.window_end as "windowEnd", o.created_at as "createdAt", o.updated_at as "updatedAt",
             (select count(*) from joint_tasks j where j.work_order_id = o.id) as "jointCount",
             coalesce((select json_agg(json_build_object('id', l.id, 'lineNumber', l.line_number, 'area', l.area) order by l.line_number)
                         from work_order_lines wl join lines l on l.id = wl.line_id where wl.work_order_id = o.id), '[]') as lines
-       from work_orders o ${where.sql}
-      order by ${SORT_COLUMNS[q.sort]} ${dir}${nulls}, o.number ${dir}
-      limit $${n + 1} offset $${n + 2}`,
+       from (select o.* from work_orders o ${where.sql}
+              order by ${order} limit $${n + 1} offset $${n + 2}) o
+      order by ${order}`,
     [...where.bind, q.pageSize, (q.page - 1) * q.pageSize],
   );
   return rows.map((r) => ({

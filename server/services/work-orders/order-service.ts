@@ -8,6 +8,7 @@ import { Line } from '@server/db/models/line';
 import { WorkOrder, WorkOrderLine } from '@server/db/models/work-order';
 import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { JointTask } from '@server/db/models/joint-task';
+import { untilChanged } from '@server/db/change-log';
 import { countOrders, nextOrderNumber, orderPage } from '@server/db/queries/work-orders';
 import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
@@ -129,7 +130,12 @@ export async function updateOrder(me: Me, id: string, body: WorkOrderUpdate): Pr
   return getOrder(id);
 }
 
+/** One page of orders; the count is computed once per filter until an order, its lines or its fitters change. */
 export async function listOrders(q: WorkOrderListQuery): Promise<WorkOrderListResponse> {
-  const [total, rows] = await Promise.all([countOrders(q), orderPage(q)]);
+  const { page: _page, pageSize: _pageSize, sort: _sort, dir: _dir, ...filters } = q;
+  const [total, rows] = await Promise.all([
+    untilChanged(`work-orders:${JSON.stringify(filters)}`, ['work-orders', 'lines'], () => countOrders(q)),
+    orderPage(q),
+  ]);
   return { rows, total, page: q.page, pageSize: q.pageSize };
 }
