@@ -4,7 +4,7 @@ export default {
   content: ['./index.html', './src/**/*.{ts,tsx}'],
   theme: {
     extend: {
-      fontFamily: { sans: ['"Inter Tight"', 'system-ui', 'sans-serif'] },
+      fontFamily: { sans: ['"Inter Tight Variable"', 'system-ui', 'sans-serif'] },
       colors: {
         // Our own palette: slate ink, a teal for action, amber for holds, brick for refusals.
         // Read on a shift tablet in bright plant light: every text colour keeps at least 5:1 on

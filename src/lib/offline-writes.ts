@@ -1,7 +1,7 @@
 import { useSyncExternalStore } from 'react';
 import { onlineManager, useMutation, useMutationState, type Mutation } from '@tanstack/react-query';
 import { ApiRequestError, sendWithKey } from '@/lib/api-client';
-import { authQueries } from '@/lib/auth';
+import { authQueries, personChecked } from '@/lib/auth';
 import { queryClient } from '@/lib/query-client';
 import { KEPT_QUERY_ROOTS, TABLET_CACHE_MAX_AGE, TABLET_WRITE_KEY } from '@/lib/tablet-cache';
 import type { Me } from '@shared/schemas/roles';
@@ -60,7 +60,7 @@ export async function signedInPerson(): Promise<Me | null> {
   const options = authQueries.me();
   const saved = queryClient.getQueryData(options.queryKey);
   const offlineAnswer = () => {
-    if (saved !== undefined) return saved;
+    if (saved !== undefined) return personChecked(saved);
     throw new ApiRequestError(0, 'network', 'This tablet is offline and has not signed in before. Connect to the network to sign in.');
   };
   if (!onlineManager.isOnline()) return offlineAnswer();
@@ -68,7 +68,7 @@ export async function signedInPerson(): Promise<Me | null> {
     const me = personAskedThisLoad ? await queryClient.ensureQueryData(options) : await queryClient.fetchQuery({ ...options, staleTime: 0 });
     personAskedThisLoad = true;
     if (me) announceSignedIn();
-    return me;
+    return personChecked(me);
   } catch (err) {
     if (err instanceof ApiRequestError && err.status === 0) return offlineAnswer();
     throw err;

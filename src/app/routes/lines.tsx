@@ -1,7 +1,6 @@
 import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
-import { queryClient } from '@/lib/query-client';
+import { useSearchParams } from 'react-router-dom';
 import { authQueries } from '@/lib/auth';
 import { may } from '@shared/permissions';
 import { lineQueries, useExportLines } from '@/features/lines/api';
@@ -12,14 +11,8 @@ import { Button, ButtonLink } from '@/components/ui/button';
 import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
-import { revalidateOnOtherPagesOnly } from '@/lib/loaders';
 
-export async function loader({ request }: LoaderFunctionArgs) {
-  await queryClient.ensureQueryData(lineQueries.list(filtersFromSearch(new URL(request.url).searchParams)));
-  return null;
-}
-
-export const shouldRevalidate = revalidateOnOtherPagesOnly;
+// Its loader is in src/app/first-screen-loaders.ts, so the register is asked for before this chunk arrives.
 
 const PAGE_SIZES = [25, 50, 100];
 

@@ -1,6 +1,5 @@
-import { onlineManager, useQuery } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { ApiRequestError } from '@/lib/api-client';
-import { ensureOrShowRefusal } from '@/lib/loaders';
 import { useFailedWrites, useOnline } from '@/lib/offline-writes';
 import { FailedWriteList } from '@/components/ui/write-list';
 import { PageHeader } from '@/components/ui/card';
@@ -8,8 +7,7 @@ import { Notice } from '@/components/ui/notice';
 import { shiftQueries } from '@/features/shift/api';
 import { ShiftOrderCard } from '@/features/shift/components/shift-order';
 
-/** Offline, the page opens on what the tablet kept; with nothing kept it says so instead of waiting on the loader. */
-export const loader = () => (onlineManager.isOnline() ? ensureOrShowRefusal(shiftQueries.mine()) : null);
+// Its loader is in src/app/first-screen-loaders.ts, so the shift is asked for before this chunk arrives.
 
 export default function ShiftPage() {
   const { data: shift, error, isPending, dataUpdatedAt } = useQuery(shiftQueries.mine());

@@ -1,8 +1,7 @@
-import { useQuery } from '@tanstack/react-query';
 import { NavLink, Outlet } from 'react-router-dom';
 import { ButtonLink } from '@/components/ui/button';
 import { WaitingWrites } from '@/components/layouts/waiting-writes';
-import { authQueries, signOut } from '@/lib/auth';
+import { signOut, useCheckedPerson } from '@/lib/auth';
 import { may, type Action } from '@shared/permissions';
 import { ROLE_LABELS } from '@shared/schemas/roles';
 
@@ -19,8 +18,12 @@ const NAV: { to: string; label: string; action?: Action }[] = [
   { to: '/admin/plant', label: 'Plant settings', action: 'plantSettings.edit' },
 ];
 
+/**
+ * Drawn at once, before the sign-in check answers: the person's name, their role-bound pages and
+ * actions fill in when it has (the page itself opens only after its loader has checked the sign-in).
+ */
 export function AppShell() {
-  const { data: me } = useQuery(authQueries.me());
+  const me = useCheckedPerson();
   const items = NAV.filter((n) => !n.action || may(me, n.action));
   return (
     <div className="min-h-screen">

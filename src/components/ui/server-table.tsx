@@ -1,4 +1,5 @@
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef } from '@tanstack/react-table';
+import type { ReactNode } from 'react';
+import type { CellContext, ColumnDef } from '@tanstack/react-table';
 
 /** What a column says of itself: the server's sort name, alignment, and whether it hides below xl. */
 export type ColumnMeta<S extends string> = { sort?: S; className?: string; numeric?: boolean; wide?: boolean };
@@ -18,6 +19,22 @@ function SortHeader({ label, active, dir, onSort }: { label: string; active: boo
 }
 
 /**
+ * What a column draws for a row: its `cell` (called with `{ row: { original } }`, all our cells read),
+ * or else the row's `accessorKey` field. Columns keep react-table's ColumnDef shape, but nothing of
+ * react-table runs: the server pages, sorts and filters, so a plain map draws the page without the
+ * library's 46 KB and its per-cell objects on the first screen.
+ */
+function cellOf<T>(column: ColumnDef<T>, original: T): ReactNode {
+  const { cell } = column;
+  if (typeof cell === 'function') return cell({ row: { original } } as CellContext<T, unknown>) as ReactNode;
+  if (typeof cell === 'string') return cell;
+  const key = 'accessorKey' in column ? (column.accessorKey as keyof T) : undefined;
+  return key === undefined ? null : (original[key] as ReactNode);
+}
+
+const metaOf = <S extends string,>(column: ColumnDef<unknown>) => (column.meta ?? {}) as ColumnMeta<S>;
+
+/**
  * A page of rows the server paged, sorted and filtered; this only draws it. Sortable columns name
  * their sort in `meta.sort`; each row opens on click or Enter and is named for screen readers.
  */
@@ -32,49 +49,43 @@ export function ServerTable<T extends { id: string }, S extends string>(props: {
   rowClassName?: (row: T) => string;
 }) {
   const { rows, columns, sorted, onSort, dimmed, rowLabel, onOpen, rowClassName } = props;
-  const table = useReactTable({ data: rows, columns, getCoreRowModel: getCoreRowModel(), manualPagination: true, manualSorting: true, manualFiltering: true, getRowId: (r) => r.id });
   return (
     <div className="overflow-x-auto rounded-xl border border-ink/10 bg-paper-raised shadow-sm">
       <table className={`w-full border-collapse text-left text-sm transition-opacity ${dimmed ? 'opacity-60' : ''}`}>
         <thead className="border-b border-ink/10 bg-paper-sunk/60 text-[13px] font-semibold text-ink-soft">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const meta = (h.column.columnDef.meta ?? {}) as ColumnMeta<S>;
-                const active = !!sorted && meta.sort === sorted.sort;
-                return (
-                  <th
-                    key={h.id}
-                    scope="col"
-                    aria-sort={active ? (sorted.dir === 'asc' ? 'ascending' : 'descending') : undefined}
-                    className={`whitespace-nowrap px-3 py-1 ${meta.numeric ? 'text-right' : ''} ${meta.wide ? WIDE : ''}`}
-                  >
-                    {meta.sort && sorted && onSort ? (
-                      <SortHeader label={String(h.column.columnDef.header)} active={active} dir={sorted.dir} onSort={() => onSort(meta.sort!)} />
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
+          <tr>
+            {columns.map((column, i) => {
+              const meta = metaOf<S>(column as ColumnDef<unknown>);
+              const active = !!sorted && meta.sort === sorted.sort;
+              const header = typeof column.header === 'string' ? column.header : '';
+              return (
+                <th
+                  key={column.id ?? i}
+                  scope="col"
+                  aria-sort={active ? (sorted.dir === 'asc' ? 'ascending' : 'descending') : undefined}
+                  className={`whitespace-nowrap px-3 py-1 ${meta.numeric ? 'text-right' : ''} ${meta.wide ? WIDE : ''}`}
+                >
+                  {meta.sort && sorted && onSort ? <SortHeader label={header} active={active} dir={sorted.dir} onSort={() => onSort(meta.sort!)} /> : header}
+                </th>
+              );
+            })}
+          </tr>
         </thead>
         <tbody>
-          {table.getRowModel().rows.map((row) => (
+          {rows.map((row) => (
             <tr
               key={row.id}
               tabIndex={0}
-              aria-label={rowLabel(row.original)}
-              onClick={() => onOpen(row.original)}
-              onKeyDown={(e) => e.key === 'Enter' && onOpen(row.original)}
-              className={`cursor-pointer border-b border-ink/5 last:border-0 hover:bg-tide-light/30 focus-visible:bg-tide-light/40 ${rowClassName?.(row.original) ?? ''}`}
+              aria-label={rowLabel(row)}
+              onClick={() => onOpen(row)}
+              onKeyDown={(e) => e.key === 'Enter' && onOpen(row)}
+              className={`cursor-pointer border-b border-ink/5 last:border-0 hover:bg-tide-light/30 focus-visible:bg-tide-light/40 ${rowClassName?.(row) ?? ''}`}
             >
-              {row.getVisibleCells().map((cell) => {
-                const meta = (cell.column.columnDef.meta ?? {}) as ColumnMeta<S>;
+              {columns.map((column, i) => {
+                const meta = metaOf<S>(column as ColumnDef<unknown>);
                 return (
-                  <td key={cell.id} className={`h-12 whitespace-nowrap px-3 py-1 ${meta.numeric ? 'text-right tabular-nums' : ''} ${meta.wide ? WIDE : ''} ${meta.className ?? ''}`}>
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  <td key={column.id ?? i} className={`h-12 whitespace-nowrap px-3 py-1 ${meta.numeric ? 'text-right tabular-nums' : ''} ${meta.wide ? WIDE : ''} ${meta.className ?? ''}`}>
+                    {cellOf(column, row)}
                   </td>
                 );
               })}
