@@ -2,7 +2,7 @@
 // lock box, the locks still on and the current verification of zero energy. The board, the lock
 // rules, the joint steps and the shift view all ask this one module.
 
-import { Op, type Transaction } from 'sequelize';
+import { col, fn, Op, type Transaction } from 'sequelize';
 import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { IsolationVerification, Lock, LockBox } from '@server/db/models/lockout';
 import type { WorkOrderState } from '@shared/schemas/work-orders';
@@ -29,7 +29,10 @@ const listTags = (tags: string[]) => (tags.length > 6 ? `${tags.slice(0, 6).join
 export async function readProtection(orderId: string, t?: Transaction): Promise<Protection> {
   const entries = await IsolationPlanEntry.findAll({ where: { workOrderId: orderId }, order: [['sortOrder', 'ASC']], transaction: t });
   const box = await LockBox.findOne({ where: { workOrderId: orderId }, transaction: t });
-  const locks = await Lock.findAll({ where: { workOrderId: orderId, removedAt: { [Op.is]: null } }, order: [['appliedAt', 'ASC']], transaction: t });
+  // locks put on in one request share a time: then by number, as the release queue lists them
+  const locks = await Lock.findAll({
+    where: { workOrderId: orderId, removedAt: { [Op.is]: null } }, order: [['appliedAt', 'ASC'], [fn('lower', col('lock_number')), 'ASC']], transaction: t,
+  });
   const verification = await IsolationVerification.findOne({
     where: { workOrderId: orderId, supersededAt: { [Op.is]: null } }, order: [['verifiedAt', 'DESC']], transaction: t,
   });
