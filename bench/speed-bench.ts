@@ -38,6 +38,10 @@ const [PG_PORT, REDIS_PORT, APP_PORT, BARE_PORT] = [BASE, BASE + 1, BASE + 2, BA
 const CONNECTIONS = 50;
 const SECRET = 'speed-bench-session-secret';
 const DIST = path.join(ROOT, '.tmp', 'dist-6489');
+/** BENCH_CPU_PROFILE=<dir>: a V8 CPU profile of this process (the app) over each product route's measured run. */
+const PROFILE_DIR = process.env.BENCH_CPU_PROFILE;
+/** BENCH_ROUTES=lines,me,…: measure only these (the search is always measured). */
+const ONLY = process.env.BENCH_ROUTES?.split(',');
 const log = (msg: string) => console.log(`[bench] ${msg}`);
 const load1 = () => os.loadavg().map((l) => l.toFixed(1)).join(' ');
 
@@ -72,6 +76,22 @@ function child<T>(envName: string, spec: object, timeoutMs: number): Promise<T> 
   });
 }
 
+async function startProfile(): Promise<(file: string) => Promise<void>> {
+  const { Session } = await import('node:inspector/promises');
+  const { mkdirSync, writeFileSync } = await import('node:fs');
+  const session = new Session();
+  session.connect();
+  await session.post('Profiler.enable');
+  await session.post('Profiler.start');
+  return async (file) => {
+    const { profile } = await session.post('Profiler.stop');
+    mkdirSync(path.dirname(file), { recursive: true });
+    writeFileSync(file, JSON.stringify(profile));
+    session.disconnect();
+    log(`  CPU profile: ${file}`);
+  };
+}
+
 /**
  * Until the app has finished every request a load run left behind (the server goes on answering
  * requests whose client has gone): no statement running in PostgreSQL and the process nearly idle,
@@ -95,7 +115,9 @@ async function measure(label: string, url: string, cookie: string, idle: () => P
   if (WARMUP > 0) await load(CONNECTIONS, WARMUP);
   await settle(idle, `the warm-up of ${label}`);
   const one = alone ? await load(1, ALONE_SECONDS) : undefined;
+  const profiling = PROFILE_DIR && alone ? await startProfile() : undefined;
   const r = await load(CONNECTIONS, SECONDS);
+  if (profiling) await profiling(path.join(PROFILE_DIR!, `${label.replace(/[^a-z0-9]+/gi, '-')}.cpuprofile`));
   const m: Measured = { ...r, label, load: load1(), aloneP50: one?.p50 };
   log(`${label}: ${r.rps} req/s, p50 ${r.p50} ms, p95 ${r.p95} ms, ${r.bytes} B/response, ${r.non2xx} non-2xx, ${r.errors} errors; load ${m.load}${one ? `; alone: ${one.rps} req/s, p50 ${one.p50} ms` : ''}`);
   if (r.non2xx || r.errors) log(`  WARNING: ${label} had ${r.non2xx} non-2xx answers and ${r.errors} errors`);
@@ -217,10 +239,11 @@ async function run(url: string) {
       log(`${ROUTES[r]}: ${JSON.stringify(body).length} bytes of JSON${count === undefined ? '' : `, ${count} ${r === 'lines' || r === 'search' ? 'matching lines' : 'rows'}`}`);
     }
     m.search = search;
-    for (const r of ['lines', 'me', 'workOrders', 'releaseQueue', 'lineStatus'] as const) {
+    for (const r of (['lines', 'me', 'workOrders', 'releaseQueue', 'lineStatus'] as const).filter((n) => !ONLY || ONLY.includes(n))) {
       m[r] = await measure(`product ${ROUTES[r]}`, product(r), cookie, idle, true);
       m[`${r}Bare`] = await measure(`bare ${ROUTES[r].split('?')[0]}`, bareUrl(r), cookie, idle);
     }
+    if (FS_RUNS === 0) continue;
     log(`first screen: ${FS_RUNS} cold loads of /lines in Chromium at 4× CPU slowdown (bench/first-screen.ts)…`);
     firstScreen = await child<FirstScreenResult>('BENCH_FIRST_SCREEN', { baseUrl: `http://127.0.0.1:${APP_PORT}`, cookie, runs: FS_RUNS }, 600_000)
       .catch((err: Error) => ({ missing: `failed: ${err.message}` }));

@@ -17,12 +17,13 @@ import * as sentMails from '@server/db/migrations/20261208000300-sent-mails';
 import * as temperatureLogs from '@server/db/migrations/20261208000400-temperature-logs';
 import * as lockLeftOnSetting from '@server/db/migrations/20261208000450-lock-left-on-setting';
 import * as listSpeed from '@server/db/migrations/20261209000100-list-speed';
+import * as changeTopics from '@server/db/migrations/20261210000100-change-topics';
 
 // Listed by hand, oldest first: a glob of .ts files does not resolve under vitest.
 const migrations = [
   createRegister, lineSearchIndex, plantSettings, lineImportPreviewedAt, dropLineSearchTrigram, plantSettingsVersion,
   lineImportPreviewSpeed, lineImportCancellation, workOrders, workOrderWindowIndex, lockoutAndJointSteps,
-  pressureTestsAndRelease, holdEngineeringEntry, sentMails, temperatureLogs, lockLeftOnSetting, listSpeed,
+  pressureTestsAndRelease, holdEngineeringEntry, sentMails, temperatureLogs, lockLeftOnSetting, listSpeed, changeTopics,
 ];
 
 export function migrator() {

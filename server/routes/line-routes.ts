@@ -2,6 +2,7 @@ import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { Router } from 'express';
 import { requirePermission } from '@server/middleware/auth';
+import { sendKept } from '@server/middleware/kept-answer';
 import { validate } from '@server/middleware/validate';
 import { logger } from '@server/logger';
 import { exportFilename, lineRegisterCsv } from '@server/services/line-register-export';
@@ -11,8 +12,8 @@ import { lineExportQuerySchema, lineListQuerySchema, lineNumberParamsSchema } fr
 export const lineRoutes = Router();
 lineRoutes.use(requirePermission('lines.read'));
 
-lineRoutes.get('/', validate({ query: lineListQuerySchema }, async ({ query }, _req, res) => {
-  res.json(await listLines(query));
+lineRoutes.get('/', validate({ query: lineListQuerySchema }, async ({ query }, req, res) => {
+  sendKept(req, res, await listLines(query, req.changeView));
 }));
 
 // Before '/:lineNumber', or "export.csv" would be looked up as a line number.

@@ -2,14 +2,15 @@ import { Router } from 'express';
 import { requirePermission } from '@server/middleware/auth';
 import { jsonBody } from '@server/middleware/body';
 import { idempotently } from '@server/middleware/idempotency';
+import { sendKept } from '@server/middleware/kept-answer';
 import { validate } from '@server/middleware/validate';
 import { findOrder } from '@server/services/work-orders/order-facts';
 import { releaseBlockers } from '@server/services/release/blockers';
 import { listPressureTests, pressureTestDto } from '@server/services/release/test-dto';
 import { recordPressureTest } from '@server/services/release/pressure-test';
 import { releaseOrder } from '@server/services/release/release';
-import { releaseQueue } from '@server/services/release/queue';
-import { lineStatusBoard } from '@server/services/release/status-board';
+import { keptReleaseQueue } from '@server/services/release/queue';
+import { keptLineStatusBoard } from '@server/services/release/status-board';
 import { pressureTestBodySchema, releaseBodySchema } from '@shared/schemas/release';
 import { workOrderIdParamsSchema as params } from '@shared/schemas/work-orders';
 
@@ -40,13 +41,13 @@ orderReleaseRoutes.post('/:id/release', requirePermission('lines.release'), json
 /** Operations' queue: orders whose lines are out, ready first, each with every reason it is blocked. */
 export const releaseQueueRoutes = Router();
 releaseQueueRoutes.use(requirePermission('workOrders.read'));
-releaseQueueRoutes.get('/', async (_req, res) => {
-  res.json(await releaseQueue());
+releaseQueueRoutes.get('/', async (req, res) => {
+  sendKept(req, res, await keptReleaseQueue(req.changeView));
 });
 
 /** Every line out of service, why, and when it can come back. */
 export const lineStatusRoutes = Router();
 lineStatusRoutes.use(requirePermission('workOrders.read'));
-lineStatusRoutes.get('/', async (_req, res) => {
-  res.json(await lineStatusBoard());
+lineStatusRoutes.get('/', async (req, res) => {
+  sendKept(req, res, await keptLineStatusBoard(req.changeView));
 });

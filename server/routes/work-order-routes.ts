@@ -2,6 +2,7 @@ import { Router } from 'express';
 import { requirePermission } from '@server/middleware/auth';
 import { jsonBody } from '@server/middleware/body';
 import { validate } from '@server/middleware/validate';
+import { sendKept } from '@server/middleware/kept-answer';
 import { getIsolationPlan, setIsolationPlan } from '@server/services/work-orders/isolation-plan';
 import { addJointTasks } from '@server/services/work-orders/joint-tasks';
 import { getOrder } from '@server/services/work-orders/order-dto';
@@ -19,8 +20,8 @@ workOrderRoutes.use(requirePermission('workOrders.read'));
 /** Writes: the planner's permission, then the body. */
 const plan = [requirePermission('workOrders.plan'), jsonBody];
 
-workOrderRoutes.get('/', validate({ query: workOrderListQuerySchema }, async ({ query }, _req, res) => {
-  res.json(await listOrders(query));
+workOrderRoutes.get('/', validate({ query: workOrderListQuerySchema }, async ({ query }, req, res) => {
+  sendKept(req, res, await listOrders(query, req.changeView));
 }));
 
 workOrderRoutes.post('/', ...plan, validate({ body: workOrderCreateSchema }, async ({ body }, _req, res) => {

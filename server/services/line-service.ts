@@ -1,6 +1,7 @@
 import { Line } from '@server/db/models/line';
 import { IsolationPoint } from '@server/db/models/isolation-point';
-import { untilChanged } from '@server/db/change-log';
+import { currentSnapshot, keptEntry, untilChanged, type ChangeView } from '@server/db/change-log';
+import type { KeptAnswer } from '@server/middleware/kept-answer';
 import { linePage, registerTotals, type LineAttributes, type LineMatch } from '@server/db/queries/lines';
 import { AppError } from '@server/errors';
 import type { LineDetailDto, LineDto, LineListQuery, LineListResponse } from '@shared/schemas/lines';
@@ -27,17 +28,21 @@ export function toLineDto(line: LineAttributes, isolationPointCount?: number, op
 }
 
 /**
- * One page of the register: a count, the page itself, isolation points counted for that page only.
- * The count and facets are computed once per filter and register version (an import or a status
- * change makes a new one), so paging and repeating a search cost only the page.
+ * One page of the register: a count, the page itself, isolation points and open orders counted for
+ * that page only. The answer is kept until the register, its points or the orders change (the
+ * request's freshness view, server/db/change-log.ts), so repeating a page or a search costs no
+ * query; the count and facets are kept per filter, so paging costs only the page.
  */
-export async function listLines(q: LineListQuery): Promise<LineListResponse> {
+export function listLines(q: LineListQuery, view?: ChangeView): Promise<KeptAnswer<LineListResponse>> {
   const filters: LineMatch = { area: q.area, material: q.material, status: q.status, size: q.size, search: q.search };
-  const [{ total, facets }, rows] = await Promise.all([
-    untilChanged(`lines:${JSON.stringify(filters)}`, ['lines'], () => registerTotals(filters)),
-    linePage(q),
-  ]);
-  return { rows: rows.map((r) => toLineDto(r, r.isolationPointCount, r.openWorkOrders)), total, page: q.page, pageSize: q.pageSize, facets };
+  return keptEntry(`lines-page:${JSON.stringify(q)}`, ['lines', 'work-orders'], async () => {
+    const snapshot = await currentSnapshot(); // before both reads: the older snapshot of the two
+    const [{ total, facets }, rows] = await Promise.all([
+      untilChanged(`lines:${JSON.stringify(filters)}`, ['lines'], () => registerTotals(filters), { view }),
+      linePage(q),
+    ]);
+    return { snapshot, value: { rows: rows.map((r) => toLineDto(r, r.isolationPointCount, r.openWorkOrders)), total, page: q.page, pageSize: q.pageSize, facets } };
+  }, { view });
 }
 
 /** One line with its isolation points in tag order; 404 naming the line when it is not in the register. */

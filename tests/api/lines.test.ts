@@ -5,6 +5,7 @@ import { useTestApp } from '../helpers/app';
 import { createOrder } from '../helpers/work-orders';
 import { Browserless, signedIn } from '../helpers/browserless';
 import { makeIsolationPoint, makeLines, uniquePrefix } from '../helpers/line-rows';
+import { statementsOf } from '../helpers/statements';
 
 const users = useTestApp({ signIn: ['planner'] });
 
@@ -125,6 +126,17 @@ describe('reading the line register', () => {
     await makeIsolationPoint(first, `${p}-B1`, 'blind');
     const body = await list({ area: `${p} area` });
     expect(body.rows.map((r) => [r.lineNumber, r.isolationPointCount])).toEqual([[first.lineNumber, 2], [second.lineNumber, 0]]);
+  });
+
+  it('a page asked again is the kept answer, without a statement, until a point is added to one of its lines', async () => {
+    const p = uniquePrefix('KEPT');
+    const [line] = await makeLines(p, [{}]);
+    const query = { area: `${p} area`, sort: 'lineNumber' };
+    expect((await list(query)).rows[0]!.isolationPointCount).toBe(0);
+    expect(await statementsOf(() => list(query))).toBe(0);
+    // Written outside the app's requests, as another process would.
+    await makeIsolationPoint(line!, `${p}-V9`);
+    expect((await list(query)).rows[0]!.isolationPointCount).toBe(1);
   });
 
   it('the facets list every area of the register and its sizes in order of inches, whatever the filters', async () => {

@@ -8,6 +8,7 @@ import { sequelize } from '@server/db/sequelize';
 import { releaseQueue } from '@server/services/release/queue';
 import type { ReleaseQueueDto } from '@shared/schemas/release';
 import { useTestApp } from '../helpers/app';
+import { statementsOf } from '../helpers/statements';
 import { isolatedOrder } from '../helpers/lockout';
 import { cureEnds, curingOrder as curingOrderOf, removeMyLocks, testBody } from '../helpers/release';
 import { plantForWorkOrders } from '../helpers/work-orders';
@@ -16,19 +17,6 @@ const users = useTestApp({ signIn: ['planner', 'fitter', 'operations'], before: 
 afterEach(() => setClockOffsetForTests(0));
 
 type Row = ReleaseQueueDto['orders'][number];
-
-/** How many SQL statements `work` sends. */
-async function queriesOf(work: () => Promise<unknown>): Promise<number> {
-  let n = 0;
-  const count = () => void n++;
-  sequelize.addHook('beforeQuery', 'count-queries', count);
-  try {
-    await work();
-  } finally {
-    sequelize.removeHook('beforeQuery', 'count-queries');
-  }
-  return n;
-}
 
 /** Ready (tested, locks off), testing (locks on, no test) and curing (locks on, hold running). */
 async function ordersInThreeStates() {
@@ -89,11 +77,39 @@ describe('the release queue and the line status board', () => {
 
   it('the queue is read with the same number of queries however many orders are open', async () => {
     await isolatedOrder(users);
-    const before = await queriesOf(releaseQueue);
+    const before = await statementsOf(releaseQueue);
     await isolatedOrder(users);
     await curingOrderOf(users);
-    const after = await queriesOf(releaseQueue);
+    const after = await statementsOf(releaseQueue);
     expect(after).toBe(before);
     expect(before).toBeLessThanOrEqual(15);
+  });
+
+  it('both are kept between reads, and answer anew when anything they read is written or a hold runs out by the clock alone', async () => {
+    const { curing } = await ordersInThreeStates();
+    const row = async () => ((await users.operations.get('/api/release-queue')).body.orders as Row[]).find((o) => o.id === curing.order.id)!;
+    const board = async () => (await users.operations.get('/api/line-status')).body.lines.find((l: { id: string }) => l.id === curing.lines[0]!.id);
+    const holds = (r: Row) => r.blockers.filter((b) => b.kind === 'hold');
+    const first = await row();
+    expect(holds(first).length).toBeGreaterThan(0);
+    expect((await board()).orders[0].blockers).toEqual(first.blockers);
+    // Asked again with nothing written: the kept answers, without a statement of the app's.
+    expect(await statementsOf(async () => { await row(); await board(); })).toBe(0);
+
+    // A write to a table only the release reads (a hold), made outside the app's requests as
+    // another process would: the next read has it.
+    expect(holds(first).map((b) => b.message)).toContainEqual(expect.stringMatching(/'s set hold runs until/));
+    await sequelize.query(`update holds set status = 'void', void_reason = 'joint cut out' where work_order_id = $1 and kind = 'set'`, { bind: [curing.order.id] });
+    const voided = await row();
+    expect(holds(voided).map((b) => b.message)).not.toContainEqual(expect.stringMatching(/'s set hold/));
+    expect(holds(voided).length).toBeGreaterThan(0); // the cure hold still runs
+    const [hold] = holds(voided);
+
+    // Past the last hold's end by the clock, with no write at all: the holds no longer stand in the way.
+    setClockOffsetForTests(Math.max(...holds(first).map((b) => Date.parse(b.until!))) - Date.now() + 60_000);
+    const later = await row();
+    expect(holds(later)).toEqual([]);
+    expect(later.blockers.map((b) => b.message)).not.toContain(hold!.message);
+    expect(holds({ ...(await board()).orders[0] })).toEqual([]);
   });
 });

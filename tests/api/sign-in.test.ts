@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { sequelize } from '@server/db/sequelize';
 import { Person } from '@server/db/models/person';
 import { SESSION_EXTEND_AFTER_MS, SESSION_IDLE_MS } from '@server/middleware/session';
+import { sessionReadCounts } from '@server/db/session-store';
 import { AuditEntry } from '@server/db/models/audit-entry';
 import { useTestApp } from '../helpers/app';
 import { Browserless, signedIn } from '../helpers/browserless';
@@ -117,6 +118,25 @@ describe('a signed-in session costs one read a request, and a write only every f
     expect(left).toBeGreaterThan(SESSION_IDLE_MS - 60_000);
     expect(left).toBeLessThanOrEqual(SESSION_IDLE_MS + 5_000);
     expect((await b.raw('/api/me')).headers.getSetCookie()).toEqual([]); // extended: quiet again
+  });
+
+  it('requests arriving together share session reads, and each still sees a role change made before it was sent', async () => {
+    const [planner, fitter, admin, supervisor] = await Promise.all([signedIn('planner'), signedIn('fitter'), signedIn('admin'), signedIn('supervisor')]);
+    const before = sessionReadCounts();
+    const answers = await Promise.all(Array.from({ length: 30 }, (_, i) => [planner, fitter][i % 2]!.get('/api/me')));
+    expect(answers.map((r) => r.status)).toEqual(Array(30).fill(200));
+    expect(answers.filter((r) => r.body.roles.includes('fitter'))).toHaveLength(15);
+    const after = sessionReadCounts();
+    expect(after.sessions - before.sessions).toBe(30);
+    expect(after.reads - before.reads).toBeLessThan(30); // batched: fewer reads than requests
+    expect(after.reads - before.reads).toBeGreaterThan(0);
+
+    const id = (await supervisor.get('/api/me')).body.id;
+    const asked = () => Promise.all(Array.from({ length: 10 }, () => supervisor.get('/api/me'))).then((rs) => rs.map((r) => r.body.roles));
+    expect((await admin.put(`/api/people/${id}/roles`, { roles: ['supervisor', 'planner'] })).status).toBe(200);
+    expect(await asked()).toEqual(Array(10).fill(['planner', 'supervisor']));
+    expect((await admin.put(`/api/people/${id}/roles`, { roles: ['supervisor'] })).status).toBe(200);
+    expect(await asked()).toEqual(Array(10).fill(['supervisor']));
   });
 
   it('a session idle for twelve hours has ended: 401, and the person must sign in again', async () => {

@@ -4,9 +4,31 @@
 
 import { Op } from 'sequelize';
 import { now } from '@server/clock';
+import { currentSnapshot, keptEntry, type ChangeTopic, type ChangeView } from '@server/db/change-log';
 import { WorkOrder } from '@server/db/models/work-order';
-import type { ReleaseQueueDto } from '@shared/schemas/release';
+import type { KeptAnswer } from '@server/middleware/kept-answer';
+import type { ReleaseBlocker, ReleaseQueueDto } from '@shared/schemas/release';
 import { queueFacts } from './queue-facts';
+
+/** Everything the queue and the status board read: orders, the register, lockout, joints, holds, tests. */
+export const RELEASE_TOPICS: readonly ChangeTopic[] = ['work-orders', 'lines', 'release'];
+
+/** When the first running hold among these blockers ends: the answer is true by the clock until then. */
+export function firstHoldEnd(blockers: readonly ReleaseBlocker[]): Date | null {
+  const ends = blockers.flatMap((b) => (b.kind === 'hold' && b.until ? [Date.parse(b.until)] : []));
+  return ends.length ? new Date(Math.min(...ends)) : null;
+}
+
+/**
+ * The queue, kept until anything it reads changes (the request's freshness view,
+ * server/db/change-log.ts) or the first running hold in it ends, whichever is sooner.
+ */
+export function keptReleaseQueue(view?: ChangeView): Promise<KeptAnswer<ReleaseQueueDto>> {
+  return keptEntry('release-queue', RELEASE_TOPICS, async () => ({ snapshot: await currentSnapshot(), value: await releaseQueue() }), {
+    view,
+    until: (q) => firstHoldEnd(q.orders.flatMap((o) => o.blockers)),
+  });
+}
 
 const IN_QUEUE = ['isolated', 'in-work', 'curing', 'testing', 'ready'];
 

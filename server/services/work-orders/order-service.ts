@@ -8,7 +8,8 @@ import { Line } from '@server/db/models/line';
 import { WorkOrder, WorkOrderLine } from '@server/db/models/work-order';
 import { IsolationPlanEntry } from '@server/db/models/isolation-plan-entry';
 import { JointTask } from '@server/db/models/joint-task';
-import { untilChanged } from '@server/db/change-log';
+import { currentSnapshot, keptEntry, untilChanged, type ChangeView } from '@server/db/change-log';
+import type { KeptAnswer } from '@server/middleware/kept-answer';
 import { countOrders, nextOrderNumber, orderPage } from '@server/db/queries/work-orders';
 import { AppError } from '@server/errors';
 import { recordAudit } from '@server/services/audit-service';
@@ -130,12 +131,18 @@ export async function updateOrder(me: Me, id: string, body: WorkOrderUpdate): Pr
   return getOrder(id);
 }
 
-/** One page of orders; the count is computed once per filter until an order, its lines or its fitters change. */
-export async function listOrders(q: WorkOrderListQuery): Promise<WorkOrderListResponse> {
+/**
+ * One page of orders, kept until an order, its lines or its fitters change (the request's freshness
+ * view, server/db/change-log.ts); the count is kept per filter, so paging costs only the page.
+ */
+export function listOrders(q: WorkOrderListQuery, view?: ChangeView): Promise<KeptAnswer<WorkOrderListResponse>> {
   const { page: _page, pageSize: _pageSize, sort: _sort, dir: _dir, ...filters } = q;
-  const [total, rows] = await Promise.all([
-    untilChanged(`work-orders:${JSON.stringify(filters)}`, ['work-orders', 'lines'], () => countOrders(q)),
-    orderPage(q),
-  ]);
-  return { rows, total, page: q.page, pageSize: q.pageSize };
+  return keptEntry(`work-orders-page:${JSON.stringify(q)}`, ['work-orders', 'lines'], async () => {
+    const snapshot = await currentSnapshot(); // before both reads: the older snapshot of the two
+    const [total, rows] = await Promise.all([
+      untilChanged(`work-orders:${JSON.stringify(filters)}`, ['work-orders', 'lines'], () => countOrders(q), { view }),
+      orderPage(q),
+    ]);
+    return { snapshot, value: { rows, total, page: q.page, pageSize: q.pageSize } };
+  }, { view });
 }
