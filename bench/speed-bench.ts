@@ -48,6 +48,8 @@ const load1 = () => os.loadavg().map((l) => l.toFixed(1)).join(' ');
 const ROUTES = {
   lines: '/api/lines?page=1&pageSize=50',
   search: '/api/lines?page=1&pageSize=50&search=HY&material=PVC&sort=designPressurePsi',
+  /** The same search with a new term in every request ({n}: 100, 101, …): nothing kept, each answer is a query. */
+  searchNew: '/api/lines?page=1&pageSize=50&search={n}&material=PVC&sort=designPressurePsi',
   me: '/api/me',
   workOrders: '/api/work-orders?state=draft&area=300%20Water%20treatment&sort=windowStart&dir=asc&page=3&pageSize=50',
   releaseQueue: '/api/release-queue',
@@ -217,6 +219,7 @@ async function run(url: string) {
 
   const m: Record<string, Measured> = {};
   const searchAt: [number, Measured][] = [];
+  const searchNewAt: [number, Measured][] = [];
   let firstScreen: FirstScreenResult | undefined;
   let lines = Number(psql('select count(*) from lines'));
   for (const size of SIZES) {
@@ -229,8 +232,10 @@ async function run(url: string) {
     }
     const search = await measure(`search at ${lines} lines`, product('search'), cookie, idle, true);
     searchAt.push([lines, search]);
+    searchNewAt.push([lines, await measure(`search, a new term each request, at ${lines} lines`, product('searchNew'), cookie, idle, true)]);
     if (size !== MAIN_SIZE) continue;
     for (const r of Object.keys(ROUTES) as RouteName[]) {
+      if (r === 'searchNew') continue;
       const res = await fetch(product(r), { headers: { cookie, 'accept-encoding': 'identity' } });
       if (res.status !== 200) throw new Error(`${ROUTES[r]} answered ${res.status}: ${await res.text()}`);
       const body = (await res.json()) as Record<string, unknown>;
@@ -249,7 +254,7 @@ async function run(url: string) {
       .catch((err: Error) => ({ missing: `failed: ${err.message}` }));
     log(`first screen: ${JSON.stringify(firstScreen)}; load ${load1()}`);
   }
-  verdicts(m, searchAt, firstScreen, log);
+  verdicts(m, searchAt, firstScreen, log, searchNewAt);
   log(`load average at the end ${load1()}; tree ${ROOT}`);
 
   await Promise.all([close(app), close(bareServer)]);

@@ -56,7 +56,13 @@ export function load(spec: LoadSpec): Promise<LoadResult> {
   return new Promise((resolve, reject) => {
     const headers = { cookie: spec.cookie, accept: 'application/json', 'accept-encoding': 'gzip, deflate, br' };
     // A 30 s timeout: a slow route's answers are counted, not dropped as errors at autocannon's default 10 s.
-    const instance = autocannon({ url: spec.url, connections: spec.connections, duration: spec.seconds, timeout: 30, headers }, (err, result) => {
+    // `{n}` in the URL: a new number in each request's place (a search nothing has kept yet).
+    let n = 100;
+    const u = new URL(spec.url);
+    const requests = spec.url.includes('%7Bn%7D') || spec.url.includes('{n}')
+      ? [{ setupRequest: (req: Record<string, unknown>) => ({ ...req, path: `${u.pathname}${u.search}`.replace(/\{n\}|%7Bn%7D/, String(n++)) }) }]
+      : undefined;
+    const instance = autocannon({ url: spec.url, connections: spec.connections, duration: spec.seconds, timeout: 30, headers, requests }, (err, result) => {
       if (err) return reject(err);
       times.sort((a, b) => a - b);
       resolve({

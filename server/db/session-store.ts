@@ -50,13 +50,13 @@ const READ = `
   select c.snapshot, c.changed, x.*
     from (select ${freshnessColumns('$2')}) c
     left join lateral (
-      select s.sid, s.sess, p.id, p.name, p.email, p.roles_from_idp as "rolesFromIdp", p.roles_granted as "rolesGranted",
+      select s.sid, s.sess::text as sess, p.id, p.name, p.email, p.roles_from_idp as "rolesFromIdp", p.roles_granted as "rolesGranted",
              p.roles_withdrawn as "rolesWithdrawn"
         from user_sessions s
         left join people p on p.id = case when s.sess->>'personId' ~ '^[0-9a-f-]{36}$' then (s.sess->>'personId')::uuid end
        where s.sid = any($1::text[]) and s.expire >= now()) x on true`;
 
-type Row = { snapshot: string; changed: string[] | null; sid: string | null; sess: SessionData | string } & Partial<SessionPerson>;
+type Row = { snapshot: string; changed: string[] | null; sid: string | null; sess: string } & Partial<SessionPerson>;
 type Read = { row: Row | undefined; view: ChangeView };
 
 /** The batch size at most; more waiting requests go in the next read. */
@@ -113,8 +113,9 @@ export class SessionStore extends PgStore {
     this.#reads.load(sid).then(
       ({ row, view }) => {
         if (!row) return callback(null, null);
-        // A copy per request: express-session changes the object it is given.
-        const sess: Loaded = typeof row.sess === 'string' ? (JSON.parse(row.sess) as SessionData) : structuredClone(row.sess);
+        // Parsed per request from the text (requests of one batch may share a row): express-session
+        // changes the object it is given.
+        const sess: Loaded = JSON.parse(row.sess) as SessionData;
         sess[PERSON] = row.id
           ? { id: row.id, name: row.name!, email: row.email ?? null, rolesFromIdp: row.rolesFromIdp!, rolesGranted: row.rolesGranted!, rolesWithdrawn: row.rolesWithdrawn! }
           : null;
