@@ -80,6 +80,10 @@ function preloadFirstScreenFonts(): Plugin {
   };
 }
 
+const TRADE = /[\\/]shared[\\/]trade[\\/]/;
+/** The register page's chunk (src/app/routes/lines.tsx). */
+const FIRST_SCREEN_PAGE = /^assets\/lines-[\w-]+\.js$/;
+
 export default defineConfig({
   plugins: [react(), tailwindcss(), preloadFirstScreenFonts(), pwa, precompressed],
   resolve: { alias: { '@': here('./src'), '@shared': here('./shared') } },
@@ -87,8 +91,19 @@ export default defineConfig({
     outDir: 'dist',
     emptyOutDir: true,
     sourcemap: false,
+    modulePreload: {
+      // The register's page is imported at start-up beside its data (src/app/first-screen-fetch.ts),
+      // before the rest of the app's code runs: the browser finds the page's few small chunks itself as
+      // the page's chunk arrives, instead of the app putting seven <link rel=modulepreload> into the
+      // page then (inserting them was ~0.1 s of a tablet's main thread on the first screen).
+      resolveDependencies: (file, deps, { hostType }) => (hostType === 'js' && FIRST_SCREEN_PAGE.test(file) ? [] : deps),
+    },
     // Libraries that only some pages use get chunks of their own, so the first page loads less.
     rolldownOptions: {
+      // shared/trade is pure (no I/O, no clock, no module state: STYLE.md habit 7), so a page that takes one
+      // rule or list from its index (the only way in) gets that module, not every table and zod (the joint
+      // specification's schema) with it: the register's first screen needs only the materials and the units.
+      treeshake: { moduleSideEffects: (id) => (TRADE.test(id) ? false : undefined) },
       output: {
         codeSplitting: {
           // React is taken first (highest priority): a group takes its modules' dependencies with it, so

@@ -1,4 +1,5 @@
-import { ROLES, ROLE_LABELS, type Role } from './schemas/roles';
+import { ROLES, ROLE_LABELS } from './schemas/role-names';
+import type { Role } from './schemas/roles';
 
 /**
  * Who may do what: the one table. The server's guard (`requirePermission`), the navigation, the

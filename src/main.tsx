@@ -1,4 +1,6 @@
 /// <reference types="vite-plugin-pwa/vanillajs" />
+// First: asks for the first screen's data before the rest of the app's code starts up.
+import '@/app/first-screen-fetch';
 import { StrictMode } from 'react';
 import { registerSW } from 'virtual:pwa-register';
 import { createRoot } from 'react-dom/client';

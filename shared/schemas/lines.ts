@@ -1,20 +1,14 @@
 import { z } from 'zod';
 import { noNul, repeatedList } from './query';
-import { PIPE_MATERIALS } from '@shared/trade';
+import { LINE_LIST_QUERY as Q, LINE_SORTS, LINE_STATUS_LABELS, LINE_STATUSES, PIPE_MATERIALS, SORT_DIRECTIONS } from './line-values';
 
-/** The trade's one list of pipe materials (shared/trade/pipe-materials.ts), offered here beside its schema. */
-export { PIPE_MATERIALS };
+/** The plain lists live in ./line-values.ts (no zod), for the register's first screen; offered here beside their schemas. */
+export { LINE_SORTS, LINE_STATUS_LABELS, LINE_STATUSES, PIPE_MATERIALS };
 export const pipeMaterialSchema = z.enum(PIPE_MATERIALS);
 export type PipeMaterial = z.infer<typeof pipeMaterialSchema>;
 
-export const LINE_STATUSES = ['in-service', 'out-of-service', 'locked-out'] as const;
 export const lineStatusSchema = z.enum(LINE_STATUSES);
 export type LineStatus = z.infer<typeof lineStatusSchema>;
-export const LINE_STATUS_LABELS: Record<LineStatus, string> = {
-  'in-service': 'In service',
-  'out-of-service': 'Out of service',
-  'locked-out': 'Locked out',
-};
 
 export const ISOLATION_KINDS = ['valve', 'blind', 'disconnect'] as const;
 export const isolationKindSchema = z.enum(ISOLATION_KINDS);
@@ -58,18 +52,19 @@ export type LineDto = z.infer<typeof lineSchema>;
 export const lineDetailSchema = lineSchema.extend({ isolationPoints: z.array(isolationPointSchema) });
 export type LineDetailDto = z.infer<typeof lineDetailSchema>;
 
-export const LINE_SORTS = ['lineNumber', 'area', 'service', 'material', 'nominalSize', 'designPressurePsi', 'status', 'updatedAt'] as const;
-
-/** Query of the register table: paging, one sort, filters and a line-number search. */
+/**
+ * Query of the register table: paging, one sort, filters and a line-number search. The register page
+ * reads its address bar by the same rules without zod (src/features/lines/filters.ts, tested against this).
+ */
 export const lineListQuerySchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(50),
-  sort: z.enum(LINE_SORTS).default('lineNumber'),
-  dir: z.enum(['asc', 'desc']).default('asc'),
-  search: noNul(z.string().trim().max(100)).optional(),
-  area: repeatedList(noNul(z.string().min(1).max(200))),
+  page: z.coerce.number().int().min(1).default(Q.page),
+  pageSize: z.coerce.number().int().min(1).max(Q.maxPageSize).default(Q.pageSize),
+  sort: z.enum(LINE_SORTS).default(Q.sort),
+  dir: z.enum(SORT_DIRECTIONS).default(Q.dir),
+  search: noNul(z.string().trim().max(Q.maxSearch)).optional(),
+  area: repeatedList(noNul(z.string().min(1).max(Q.maxArea))),
   material: repeatedList(pipeMaterialSchema),
-  size: repeatedList(noNul(z.string().min(1).max(50))),
+  size: repeatedList(noNul(z.string().min(1).max(Q.maxSize))),
   status: repeatedList(lineStatusSchema),
 });
 export type LineListQuery = z.infer<typeof lineListQuerySchema>;

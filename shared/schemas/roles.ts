@@ -1,16 +1,10 @@
 import { z } from 'zod';
+import { ROLES, ROLE_LABELS } from './role-names';
 
-export const ROLES = ['planner', 'fitter', 'operations', 'supervisor', 'admin'] as const;
+/** The list and its names live in ./role-names.ts (no zod), for the first screen; offered here beside the schema. */
+export { ROLES, ROLE_LABELS };
 export const roleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof roleSchema>;
-
-export const ROLE_LABELS: Record<Role, string> = {
-  planner: 'Maintenance planner',
-  fitter: 'Pipefitter',
-  operations: 'Operations shift lead',
-  supervisor: 'Supervisor',
-  admin: 'Administrator',
-};
 
 export const meSchema = z.object({
   id: z.string().uuid(),

@@ -34,8 +34,28 @@ async function refusal(res: Response): Promise<ApiRequestError> {
   return new ApiRequestError(res.status, err?.code ?? 'http_' + res.status, err?.message ?? `The server answered ${res.status}.`, err?.details);
 }
 
+/**
+ * GETs started at start-up, before the app's code has run (src/app/first-screen-fetch.ts): each is
+ * handed to the first GET of the same path, once, if that comes within a few seconds; later GETs fetch anew.
+ */
+const early = new Map<string, { at: number; response: Promise<Response> }>();
+const EARLY_KEPT_MS = 10_000;
+
+export function fetchEarly(path: string): void {
+  if (early.has(path)) return;
+  const response = send('GET', path);
+  response.catch(() => undefined); // the GET that takes it reports the failure
+  early.set(path, { at: Date.now(), response });
+}
+
+function takeEarly(path: string): Promise<Response> | undefined {
+  const started = early.get(path);
+  early.delete(path);
+  return started && Date.now() - started.at < EARLY_KEPT_MS ? started.response : undefined;
+}
+
 async function request<T>(method: string, path: string, body?: unknown, headers?: Record<string, string>): Promise<T> {
-  const res = await send(method, path, body, headers);
+  const res = await ((method === 'GET' && takeEarly(path)) || send(method, path, body, headers));
   if (!res.ok) throw await refusal(res);
   const text = await res.text();
   return (text && res.headers.get('content-type')?.includes('json') ? JSON.parse(text) : null) as T;

@@ -3,6 +3,9 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api, ApiRequestError } from '@/lib/api-client';
 import type { Me } from '@shared/schemas/roles';
 
+/** Who is signed in (401: nobody); also asked for at start-up by src/app/first-screen-fetch.ts. */
+export const ME_PATH = '/api/me';
+
 export const authQueries = {
   all: () => ['auth'] as const,
   me: () =>
@@ -10,7 +13,7 @@ export const authQueries = {
       queryKey: [...authQueries.all(), 'me'],
       queryFn: async (): Promise<Me | null> => {
         try {
-          return await api.get<Me>('/api/me');
+          return await api.get<Me>(ME_PATH);
         } catch (err) {
           if (err instanceof ApiRequestError && err.status === 401) return null;
           throw err;

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import {
   containers, degC, degF, duration, formatDate, formatDateTime, formatPressure, formatPressureBar, formatSize, formatTemperature,
   formatTemperatureC, formatWall, inches, metricPressure, mm, pressureIn, psi, temperatureIn, volume,
@@ -65,6 +66,19 @@ describe('the register writes whole psi and °F, thousands separated, metric to 
     expect(formatWall({ schedule: '80', sdr: 21 })).toBe('Sch 80 · SDR 21');
     expect(formatWall({ schedule: null, sdr: null })).toBe('—');
   });
+
+  // The register's numbers are written without Intl (its start-up cost on the first screen): they must read as Intl writes them.
+  it('writes every number as Intl en-US does, to a whole unit or a tenth', () => {
+    const intl = [0, 1].map((digits) => new Intl.NumberFormat('en-US', { maximumFractionDigits: digits }));
+    const check = (x: number) => {
+      expect(formatPressure(x)).toBe(`${intl[0]!.format(x)} psi`);
+      expect(formatTemperatureC(x)).toBe(`${intl[1]!.format(((x - 32) * 5) / 9)} °C`);
+      expect(formatWall({ schedule: null, sdr: x })).toBe(x ? `SDR ${intl[1]!.format(x)}` : '—');
+    };
+    for (const x of [0, -0, 0.05, 0.15, 0.25, -0.04, -0.05, -0.5, 0.5, 1.5, 2.5, 999.5, 999.95, 1234.45, 1e6, 123456789.05, -1234567.5, 1e-7, 1e21, NaN, Infinity, -Infinity]) check(x);
+    fc.assert(fc.property(fc.double({ min: -1e9, max: 1e9 }), check), { numRuns: 3000 });
+    fc.assert(fc.property(fc.integer({ min: -200000, max: 200000 }), (n) => check(n / 20)), { numRuns: 2000 });
+  });
 });
 
 describe('dates, in the browser time zone', () => {
@@ -72,5 +86,15 @@ describe('dates, in the browser time zone', () => {
   it('a date alone, and a date with its time', () => {
     expect(formatDate('2026-04-05T12:00:00Z')).toBe('Apr 5, 2026');
     expect(formatDateTime('2026-04-05T12:00:00Z')).toMatch(/^Apr 5, 2026, \d{1,2}:00\s?[AP]M$/);
+  });
+
+  it('writes every date as Intl en-US does (the register writes them without Intl)', () => {
+    const intl = new Intl.DateTimeFormat('en-US', { year: 'numeric', month: 'short', day: 'numeric' });
+    const check = (d: Date) => {
+      expect(formatDate(d.toISOString())).toBe(intl.format(d));
+    };
+    for (const iso of ['2026-01-01T00:00:00Z', '2025-12-31T23:59:59Z', '2024-02-29T12:00:00Z', '2026-09-15T12:00:00Z', '1000-01-01T12:00:00Z']) check(new Date(iso));
+    fc.assert(fc.property(fc.date({ min: new Date('0001-01-01T00:00:00Z'), max: new Date('9999-12-30T00:00:00Z'), noInvalidDate: true }), check), { numRuns: 3000 });
+    expect(() => formatDate('not a date')).toThrow(RangeError);
   });
 });

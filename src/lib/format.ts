@@ -1,6 +1,9 @@
 // How Linewright writes numbers and dates: pressures, temperatures, lengths, durations, dates.
-// US units first (the engine's: psi, °F, inches), metric beside. The Intl formatters are made
-// once, here; a call only formats.
+// US units first (the engine's: psi, °F, inches), metric beside. The register's numbers and dates
+// are written out by hand rather than by Intl: a page load's first Intl formatter costs 0.1–0.3 s
+// on a tablet's CPU (the locale data), and the register is the first screen. format.test.ts checks
+// them against Intl; anything out of the ordinary (NaN, huge numbers, odd years) still goes to Intl,
+// whose formatters are made on first use and kept.
 
 import { fToC, inToMm, psiToBar, psiToKpa, type Container } from '@shared/trade';
 import type { LineDto } from '@shared/schemas/lines';
@@ -15,13 +18,29 @@ export const TEMPERATURE_UNIT_LABEL: Record<TemperatureUnit, string> = { F: '°F
 
 const ML_PER_QUART = 946.352946;
 
-/** With thousands separators, for values only read (the register). */
-const upTo = (digits: 0 | 1) => new Intl.NumberFormat('en-US', { maximumFractionDigits: digits });
-const GROUPED = [upTo(0), upTo(1)] as const;
-const DATE = new Intl.DateTimeFormat('en-US', { year: 'numeric', month: 'short', day: 'numeric' });
-const DATE_TIME = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'short' });
+/** An Intl formatter made on its first use, then kept. */
+const lazily = <T,>(make: () => T) => {
+  let made: T | undefined;
+  return () => (made ??= make());
+};
+const INTL_GROUPED = [0, 1].map((digits) => lazily(() => new Intl.NumberFormat('en-US', { maximumFractionDigits: digits })));
+const INTL_DATE = lazily(() => new Intl.DateTimeFormat('en-US', { year: 'numeric', month: 'short', day: 'numeric' }));
+const DATE_TIME = lazily(() => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'short' }));
 
-const grouped = (x: number, digits: 0 | 1 = 0) => GROUPED[digits].format(x);
+/**
+ * With thousands separators, for values only read (the register): what Intl.NumberFormat('en-US',
+ * { maximumFractionDigits: digits }) writes. Like it, this rounds the number as written (its shortest
+ * decimal: 0.15 → 0.2, where toFixed gives 0.1), half away from zero, and keeps the sign of a
+ * negative that rounds to zero ("-0").
+ */
+function grouped(x: number, digits: 0 | 1 = 0): string {
+  const written = String(Math.abs(x));
+  if (!/^\d{1,15}(\.\d+)?$/.test(written)) return INTL_GROUPED[digits]!().format(x); // NaN, ∞, exponents
+  const rounded = (Math.round(Number(`${written}e${digits}`)) / 10 ** digits).toFixed(digits).replace(/\.0$/, '');
+  const [whole, decimals] = rounded.split('.');
+  const sign = x < 0 || Object.is(x, -0) ? '-' : '';
+  return `${sign}${whole!.replace(/\B(?=(\d{3})+$)/g, ',')}${decimals ? `.${decimals}` : ''}`;
+}
 /**
  * At most `digits` decimals, trailing zeros dropped ("1.50" → "1.5"), no separators, so a value
  * written into a field reads back as the same number. toFixed rather than Intl, which rounds the
@@ -92,7 +111,14 @@ export function formatWall(line: Pick<LineDto, 'schedule' | 'sdr'>): string {
 
 // ---- dates, in the browser's time zone
 
-/** "Apr 5, 2026" */
-export const formatDate = (iso: string) => DATE.format(new Date(iso));
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "Apr 5, 2026": Intl's en-US medium date, written out (an invalid date or an odd year goes to Intl). */
+export function formatDate(iso: string): string {
+  const d = new Date(iso);
+  const year = d.getFullYear();
+  if (!(year >= 1000 && year <= 9999)) return INTL_DATE().format(d);
+  return `${MONTHS[d.getMonth()]} ${d.getDate()}, ${year}`;
+}
 /** "Apr 5, 2026, 2:07 PM" */
-export const formatDateTime = (iso: string) => DATE_TIME.format(new Date(iso));
+export const formatDateTime = (iso: string) => DATE_TIME().format(new Date(iso));

@@ -58,8 +58,9 @@ export const signedInThisLoad = new Promise<void>((resolve) => (announceSignedIn
  */
 export async function signedInPerson(): Promise<Me | null> {
   const options = authQueries.me();
-  const saved = queryClient.getQueryData(options.queryKey);
-  const offlineAnswer = () => {
+  const offlineAnswer = async () => {
+    await tabletCacheRestored; // the register may open before the stored cache is back; the person kept is in it
+    const saved = queryClient.getQueryData(options.queryKey);
     if (saved !== undefined) return personChecked(saved);
     throw new ApiRequestError(0, 'network', 'This tablet is offline and has not signed in before. Connect to the network to sign in.');
   };
@@ -123,8 +124,14 @@ queryClient.setMutationDefaults(TABLET_WRITE_KEY, {
 // The answers the tablet keeps must outlive the stored cache's age, or they are dropped before they are saved.
 for (const root of KEPT_QUERY_ROOTS) queryClient.setQueryDefaults([root], { gcTime: TABLET_CACHE_MAX_AGE });
 
+let restored: () => void;
+/** Resolves once the tablet's stored cache has been read back into the query client (or could not be read). */
+export const tabletCacheRestored = new Promise<void>((resolve) => (restored = resolve));
+export const tabletCacheUnreadable = () => restored();
+
 /** After the stored cache is restored: send what waited (not awaited: the app opens while they go). */
 export function resumeWrites(): void {
+  restored();
   void queryClient.resumePausedMutations();
 }
 

@@ -12,7 +12,8 @@ import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
 
-// Its loader is in src/app/first-screen-loaders.ts, so the register is asked for before this chunk arrives.
+// Its loader is in src/app/first-screen-loaders.ts, so the register is asked for before this chunk arrives;
+// the page draws without waiting for it and fills the table in when it comes.
 
 const PAGE_SIZES = [25, 50, 100];
 
@@ -59,6 +60,11 @@ export default function LinesPage() {
         <Notice tone="refusal" title="The register could not be loaded">
           {error.message}
         </Notice>
+      )}
+      {!data && !error && (
+        <p role="status" className="rounded-xl border border-ink/10 bg-paper-raised px-3 py-3 text-sm text-ink-soft">
+          Loading the register…
+        </p>
       )}
       {data && data.total === 0 && <EmptyRegister filtered={hasActiveFilters(filters)} mayImport={mayImport} onClear={() => setParams(new URLSearchParams())} />}
       {data && data.total > 0 && data.rows.length === 0 && (

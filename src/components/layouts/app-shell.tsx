@@ -3,7 +3,7 @@ import { ButtonLink } from '@/components/ui/button';
 import { WaitingWrites } from '@/components/layouts/waiting-writes';
 import { signOut, useCheckedPerson } from '@/lib/auth';
 import { may, type Action } from '@shared/permissions';
-import { ROLE_LABELS } from '@shared/schemas/roles';
+import { ROLE_LABELS } from '@shared/schemas/role-names';
 
 /** A page with an action is offered to those the permission table lets do it; the rest to everyone signed in. */
 const NAV: { to: string; label: string; action?: Action }[] = [

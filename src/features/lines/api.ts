@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation } from '@tanstack/react-query';
 import { api, saveFile, toSearch } from '@/lib/api-client';
 import type { LineDetailDto, LineListResponse } from '@shared/schemas/lines';
-import { exportFilters, type LineFilters } from '@/features/lines/filters';
+import { exportFilters, lineListPath, type LineFilters } from '@/features/lines/filters';
 
 export const lineQueries = {
   all: () => ['lines'] as const,
@@ -9,7 +9,7 @@ export const lineQueries = {
   list: (filters: LineFilters) =>
     queryOptions({
       queryKey: [...lineQueries.lists(), filters],
-      queryFn: () => api.get<LineListResponse>(`/api/lines${toSearch(filters)}`),
+      queryFn: () => api.get<LineListResponse>(lineListPath(filters)),
       // The previous page stays on screen while the next loads, so paging and sorting do not flash.
       placeholderData: keepPreviousData,
     }),

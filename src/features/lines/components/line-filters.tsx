@@ -1,7 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import { useDebouncedValue } from '@/lib/use-debounced-value';
 import { CheckMenu, type CheckOption } from '@/components/ui/check-menu';
-import { LINE_STATUSES, LINE_STATUS_LABELS, PIPE_MATERIALS, type LineListResponse } from '@shared/schemas/lines';
+import type { LineListResponse } from '@shared/schemas/lines';
+import { LINE_STATUSES, LINE_STATUS_LABELS, PIPE_MATERIALS } from '@shared/schemas/line-values';
 import { FILTER_KEYS, hasActiveFilters, type LineFilterKey, type LineFilters } from '@/features/lines/filters';
 import { formatSize } from '@/lib/format';
 

@@ -1,4 +1,5 @@
-import { LINE_STATUS_LABELS, type LineStatus } from '@shared/schemas/lines';
+import type { LineStatus } from '@shared/schemas/lines';
+import { LINE_STATUS_LABELS } from '@shared/schemas/line-values';
 
 /** Each status has its own shape as well as a word, so it reads without colour too. */
 const MARKS: Record<LineStatus, React.ReactNode> = {

@@ -1,3 +1,4 @@
+import { useDeferredValue } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import { ServerTable, type ColumnMeta } from '@/components/ui/server-table';
 import { Link, useLocation, useNavigate } from 'react-router-dom';
@@ -39,14 +40,21 @@ function LineLink({ lineNumber }: { lineNumber: string }) {
   );
 }
 
+/** Rows a screen holds (a tablet shows about ten under the heading and the filters). */
+const ON_FIRST_SCREEN = 15;
+
 /** The register's table: the server pages and sorts; this only draws the page it was given. */
 export function LinesTable({ rows, filters, onSort, dimmed }: { rows: LineDto[]; filters: LineFilters; onSort: (sort: Sort) => void; dimmed?: boolean }) {
+  // When the table first appears, the rows on screen are drawn first and the rest of the page (below
+  // the fold) in the pass just after (React's deferred value): on a tablet's CPU the first rows are on
+  // screen without waiting for the other 35 rows' render and layout. Later pages draw whole.
+  const drawn = useDeferredValue(rows, rows.slice(0, ON_FIRST_SCREEN));
   const navigate = useNavigate();
   // The line page's "back" link returns to this exact view of the register.
   const { search } = useLocation();
   return (
     <ServerTable
-      rows={rows}
+      rows={drawn}
       columns={columns}
       sorted={filters}
       onSort={onSort}
