@@ -94,6 +94,14 @@ async function startProfile(): Promise<(file: string) => Promise<void>> {
   };
 }
 
+/** The register's growth by the line import, in bench/speed-grow.ts (a child process, so the serving process keeps its heap). */
+function grow(spec: object): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const c = spawn(BIN('tsx'), ['bench/speed-grow.ts'], { cwd: ROOT, env: { ...process.env, BENCH_GROW: JSON.stringify(spec) }, stdio: ['ignore', 'inherit', 'inherit'] });
+    c.once('exit', (code) => (code === 0 ? resolve() : reject(new Error(`the register's growth failed (exit ${code})`))));
+  });
+}
+
 /**
  * Until the app has finished every request a load run left behind (the server goes on answering
  * requests whose client has gone): no statement running in PostgreSQL and the process nearly idle,
@@ -225,8 +233,9 @@ async function run(url: string) {
   for (const size of SIZES) {
     if (size > lines) {
       const t0 = performance.now();
-      await fill.importCsv(loader, `bench-lines-${size}.csv`, fill.plantLinesCsv(lines - 150, size - lines));
+      await grow({ loader, from: lines - 150, count: size - lines, filename: `bench-lines-${size}.csv` });
       psql('vacuum analyze');
+      psql('checkpoint'); // the import's dirty pages written now, not while the next target is measured
       lines = Number(psql('select count(*) from lines'));
       log(`register grown to ${lines} lines through the line import in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
     }

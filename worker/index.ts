@@ -4,7 +4,6 @@ import { closeQueues } from '@server/queues/connection';
 import { startWorkers } from './workers';
 
 const running = startWorkers();
-logger.info('Linewright worker started');
 
 async function shutdown() {
   await running.close();
@@ -14,3 +13,7 @@ async function shutdown() {
 }
 process.on('SIGINT', () => void shutdown());
 process.on('SIGTERM', () => void shutdown());
+// Last: whoever waits for this line (a test, a supervisor) may signal at once. Logged before the
+// handlers, a SIGTERM that came between the line (written synchronously to a pipe) and them killed
+// the worker instead of stopping it.
+logger.info('Linewright worker started');
