@@ -81,8 +81,6 @@ function preloadFirstScreenFonts(): Plugin {
 }
 
 const TRADE = /[\\/]shared[\\/]trade[\\/]/;
-/** The register page's chunk (src/app/routes/lines.tsx). */
-const FIRST_SCREEN_PAGE = /^assets\/lines-[\w-]+\.js$/;
 
 export default defineConfig({
   plugins: [react(), tailwindcss(), preloadFirstScreenFonts(), pwa, precompressed],
@@ -91,13 +89,13 @@ export default defineConfig({
     outDir: 'dist',
     emptyOutDir: true,
     sourcemap: false,
-    modulePreload: {
-      // The register's page is imported at start-up beside its data (src/app/first-screen-fetch.ts),
-      // before the rest of the app's code runs: the browser finds the page's few small chunks itself as
-      // the page's chunk arrives, instead of the app putting seven <link rel=modulepreload> into the
-      // page then (inserting them was ~0.1 s of a tablet's main thread on the first screen).
-      resolveDependencies: (file, deps, { hostType }) => (hostType === 'js' && FIRST_SCREEN_PAGE.test(file) ? [] : deps),
-    },
+    // No <link rel=modulepreload>: Chromium compiles a module-preloaded chunk on the main thread as
+    // it arrives (the React chunk: 0.4–0.7 s of a tablet's main thread at 4× CPU slowdown, measured
+    // in a trace), while the chunks the entry imports are compiled off the main thread as they
+    // stream in. The cost is one round trip: the entry's imports are found when it arrives. Cold
+    // /lines at 4×: largest contentful paint 2.5 s against 3.2 s with the preloads. The register's
+    // page chunk is still asked for early, by src/app/first-screen-fetch.ts.
+    modulePreload: false,
     // Libraries that only some pages use get chunks of their own, so the first page loads less.
     rolldownOptions: {
       // shared/trade is pure (no I/O, no clock, no module state: STYLE.md habit 7), so a page that takes one

@@ -4,14 +4,12 @@ import { filtersFromSearch, lineListPath } from '@/features/lines/filters';
 
 // The first import of src/main.tsx, so it runs before the rest of the app's code (React, the router,
 // the query client) has started up, a few hundred ms on a tablet's CPU: who is signed in and, on the
-// register, its first page and its page's code are asked for at once. The query functions then take
-// these answers (api-client's fetchEarly) instead of asking again, and the router's lazy import finds
-// the code under way. It imports nothing heavy, so it runs first.
+// register, its first page are asked for at once. The query functions then take these answers
+// (api-client's fetchEarly) instead of asking again. It imports nothing heavy, so it runs first.
 
 if (window.location.pathname !== '/sign-in') {
   fetchEarly(ME_PATH);
   if (window.location.pathname === '/lines') {
     fetchEarly(lineListPath(filtersFromSearch(new URLSearchParams(window.location.search))));
-    void import('@/app/routes/lines').catch(() => undefined); // the router's import reports a failure
   }
 }
