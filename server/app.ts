@@ -83,6 +83,9 @@ export function createApp(opts: AppOptions = {}) {
   app.locals.signInLimitConnected = signInLimit.connected;
   app.set('trust proxy', config.trustProxy);
   app.disable('x-powered-by');
+  // No ETag on answers made per request: they are `no-store`, so no browser asks again with one, and
+  // making it hashed every answer (the client's files keep theirs: serve-static makes its own).
+  app.set('etag', false);
   app.use(helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'], 'upgrade-insecure-requests': null } } }));
   // Answers made per request (JSON, the CSV export, the page) are compressed on the fly: brotli at
   // quality 4 (compression's default, fast enough per request), gzip level 6 for browsers without
