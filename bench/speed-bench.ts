@@ -243,6 +243,7 @@ async function run(url: string) {
       await grow({ loader, from: lines - 150, count: size - lines, filename: `bench-lines-${size}.csv` });
       psql('vacuum analyze');
       psql('checkpoint'); // the import's dirty pages written now, not while the next target is measured
+      execFileSync('sync'); // and out of the system's write-back too
       lines = Number(psql('select count(*) from lines'));
       log(`register grown to ${lines} lines through the line import in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
     }
