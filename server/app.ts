@@ -6,6 +6,7 @@ import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { config } from '@server/config';
 import { errorHandler, notFound } from '@server/middleware/error-handler';
+import { COMPRESS_THRESHOLD } from '@server/middleware/kept-answer';
 import { sameOrigin } from '@server/middleware/same-origin';
 import { limitPerAddress } from '@server/middleware/rate-limit';
 import { requireSignIn } from '@server/middleware/auth';
@@ -92,7 +93,7 @@ export function createApp(opts: AppOptions = {}) {
   // brotli; small answers are not worth it. Photos and PDFs are already compressed and their types
   // are not "compressible" (mime-db), and the client's pre-compressed files carry their own
   // Content-Encoding, so neither is compressed again.
-  app.use(compression({ threshold: 1024 }));
+  app.use(compression({ threshold: COMPRESS_THRESHOLD }));
   app.use(['/api', '/auth'], noStore);
   app.use(['/auth/login', '/auth/callback'], signInLimit); // before the session: a refused start stores nothing
 

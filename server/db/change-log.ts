@@ -32,6 +32,12 @@ export interface Snapshotted<T> {
   value: T;
 }
 
+/** A kept value and the encodings of it made for answers so far (sent by server/middleware/kept-answer.ts). */
+export interface KeptAnswer<T> {
+  value: T;
+  encoded: Map<string, Buffer>;
+}
+
 /** The topics' generations as one request's freshness check left them. */
 export type ChangeView = Readonly<Record<ChangeTopic, number>>;
 
@@ -109,7 +115,7 @@ async function stillTrue(hit: Kept, topics: readonly ChangeTopic[], view: Change
 }
 
 /** The entry kept under `key` — `compute()`'s, or the one kept when nothing under `topics` has changed since. */
-export async function keptEntry<T>(key: string, topics: readonly ChangeTopic[], compute: () => Promise<Snapshotted<T>>, opts: KeepOptions<T> = {}): Promise<{ value: T; encoded: Map<string, Buffer> }> {
+export async function keptEntry<T>(key: string, topics: readonly ChangeTopic[], compute: () => Promise<Snapshotted<T>>, opts: KeepOptions<T> = {}): Promise<KeptAnswer<T>> {
   const hit = kept.get(key);
   if (hit && (await stillTrue(hit, topics, opts.view))) {
     hit.encoded ??= new Map();

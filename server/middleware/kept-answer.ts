@@ -5,15 +5,10 @@
 
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import type { Request, Response } from 'express';
+import type { KeptAnswer } from '@server/db/change-log';
 
-/** A value kept for answers and the encodings made of it so far. */
-export interface KeptAnswer<T> {
-  value: T;
-  encoded: Map<string, Buffer>;
-}
-
-/** Not worth compressing below this (as the compression middleware's threshold). */
-const THRESHOLD = 1024;
+/** Answers smaller than this are not worth compressing (here and in the app's compression middleware). */
+export const COMPRESS_THRESHOLD = 1024;
 
 function encode(kept: KeptAnswer<unknown>, encoding: 'identity' | 'br' | 'gzip'): Buffer {
   let body = kept.encoded.get(encoding);
@@ -32,7 +27,7 @@ function encode(kept: KeptAnswer<unknown>, encoding: 'identity' | 'br' | 'gzip')
 export function sendKept(req: Request, res: Response, kept: KeptAnswer<unknown>): void {
   const identity = encode(kept, 'identity');
   // Brotli whenever it is taken at all, whatever the header's order (as the compression middleware does).
-  const encoding = identity.length < THRESHOLD ? 'identity' : req.acceptsEncodings('br') ? 'br' : req.acceptsEncodings('gzip') ? 'gzip' : 'identity';
+  const encoding = identity.length < COMPRESS_THRESHOLD ? 'identity' : req.acceptsEncodings('br') ? 'br' : req.acceptsEncodings('gzip') ? 'gzip' : 'identity';
   const body = encode(kept, encoding);
   res.vary('Accept-Encoding');
   res.status(200).type('application/json; charset=utf-8');

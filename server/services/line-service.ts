@@ -1,7 +1,6 @@
 import { Line } from '@server/db/models/line';
 import { IsolationPoint } from '@server/db/models/isolation-point';
-import { currentSnapshot, keptEntry, untilChanged, type ChangeView } from '@server/db/change-log';
-import type { KeptAnswer } from '@server/middleware/kept-answer';
+import { currentSnapshot, keptEntry, untilChanged, type ChangeView, type KeptAnswer } from '@server/db/change-log';
 import { linePage, registerTotals, type LineAttributes, type LineMatch } from '@server/db/queries/lines';
 import { AppError } from '@server/errors';
 import type { LineDetailDto, LineDto, LineListQuery, LineListResponse } from '@shared/schemas/lines';

@@ -4,9 +4,8 @@
 
 import { Op } from 'sequelize';
 import { now } from '@server/clock';
-import { currentSnapshot, keptEntry, type ChangeTopic, type ChangeView } from '@server/db/change-log';
+import { currentSnapshot, keptEntry, type ChangeTopic, type ChangeView, type KeptAnswer } from '@server/db/change-log';
 import { WorkOrder } from '@server/db/models/work-order';
-import type { KeptAnswer } from '@server/middleware/kept-answer';
 import type { ReleaseBlocker, ReleaseQueueDto } from '@shared/schemas/release';
 import { queueFacts } from './queue-facts';
 

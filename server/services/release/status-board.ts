@@ -2,10 +2,9 @@
 // reason each cannot release yet, and the latest hold end — the soonest it can come back by the clock.
 
 import { Op } from 'sequelize';
-import { currentSnapshot, keptEntry, type ChangeView } from '@server/db/change-log';
+import { currentSnapshot, keptEntry, type ChangeView, type KeptAnswer } from '@server/db/change-log';
 import { Line } from '@server/db/models/line';
 import { WorkOrderLine } from '@server/db/models/work-order';
-import type { KeptAnswer } from '@server/middleware/kept-answer';
 import type { LineStatusBoardDto } from '@shared/schemas/release';
 import { firstHoldEnd, keptReleaseQueue, RELEASE_TOPICS } from './queue';
 
