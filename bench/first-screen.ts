@@ -60,6 +60,8 @@ export interface FirstScreenRun {
   firstRowMs: number;
   /** The LCP element: tag and the start of its text, to see what the paint was. */
   lcpElement: string;
+  /** When the page, its style, script, first paint, /api/me, the register's page and the font arrived (ms). */
+  timeline: string;
   bytes: number;
   requests: number;
   swBytes: number;
@@ -114,7 +116,7 @@ const PAGE_PROBE = (rowSelector: string) => `
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'log'>>): Promise<FirstScreenRun> {
+async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'log'>>, trace?: string): Promise<FirstScreenRun> {
   const url = new URL(o.path, o.baseUrl);
   const eq = o.cookie.indexOf('=');
   const context = await browser.newContext({ viewport: o.viewport });
@@ -134,6 +136,8 @@ async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'lo
     });
 
     const page = await context.newPage();
+    // BENCH_FIRST_SCREEN_TRACE=<dir>: a Chromium performance trace of each measured run (open it in the DevTools' Performance panel).
+    if (trace) await browser.startTracing(page, { path: trace, screenshots: false, categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8.execute', 'blink.user_timing', 'loading'] });
     await page.addInitScript(PAGE_PROBE(o.rowSelector));
     const cdp: CDPSession = await context.newCDPSession(page);
     await cdp.send('Network.enable');
@@ -186,9 +190,21 @@ async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'lo
         setTimeout(() => resolve(undefined), 2000);
       });
       const lcp = last ? { ms: last.startTime, element: w.__lcp && w.__lcp.ms === last.startTime ? w.__lcp.element : '(removed)' } : w.__lcp;
-      return { firstRowMs: w.__firstRowMs, lcp };
+      // When the page's first paint came and its main requests had arrived, to see what the LCP waited for.
+      // (No named functions in here: tsx would wrap them in a helper the page does not have.)
+      const res = performance.getEntriesByType('resource') as PerformanceResourceTiming[];
+      const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming | undefined;
+      const times: [string, number | undefined][] = [
+        ['html', nav?.responseEnd],
+        ['FCP', performance.getEntriesByName('first-contentful-paint')[0]?.startTime],
+        ...([['css', /^\/assets\/.*\.css$/], ['js', /^\/assets\/index-.*\.js$/], ['me', /^\/api\/me$/], ['lines', /^\/api\/lines$/], ['font', /\.woff2$/]] as const)
+          .map(([name, re]): [string, number | undefined] => [name, res.find((r) => re.test(new URL(r.name).pathname))?.responseEnd]),
+      ];
+      const timeline = times.map(([name, t]) => `${name} ${t === undefined ? '?' : t.toFixed(0)}`).join(', ');
+      return { firstRowMs: w.__firstRowMs, lcp, timeline };
     });
     counting = false;
+    if (trace) await browser.stopTracing();
 
     if (o.countServiceWorker) {
       // The precache starts once the person is known; wait for the worker to be ready and its fetches to stop.
@@ -199,6 +215,7 @@ async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'lo
       lcpMs: probe.lcp?.ms ?? NaN,
       lcpElement: probe.lcp?.element ?? '(none)',
       firstRowMs: probe.firstRowMs,
+      timeline: probe.timeline,
       bytes,
       requests,
       swBytes,
@@ -223,9 +240,9 @@ export async function measureFirstScreen(opts: FirstScreenOptions): Promise<Firs
     // One untimed run: Chromium's own start-up (and the server's first requests) would otherwise land on run 1.
     await oneRun(browser, { ...o, countServiceWorker: false });
     for (let i = 1; i <= o.runs; i++) {
-      const r = await oneRun(browser, o);
+      const r = await oneRun(browser, o, process.env.BENCH_FIRST_SCREEN_TRACE && path.join(process.env.BENCH_FIRST_SCREEN_TRACE, `run-${i}.json`));
       runs.push(r);
-      log(`run ${i}: LCP ${r.lcpMs.toFixed(0)} ms (${r.lcpElement}), first row ${r.firstRowMs.toFixed(0)} ms, ${kib(r.bytes)} in ${r.requests} requests; service worker ${kib(r.swBytes)} in ${r.swRequests}`);
+      log(`run ${i}: LCP ${r.lcpMs.toFixed(0)} ms (${r.lcpElement}), first row ${r.firstRowMs.toFixed(0)} ms (${r.timeline}), ${kib(r.bytes)} in ${r.requests} requests; service worker ${kib(r.swBytes)} in ${r.swRequests}`);
     }
   } finally {
     await browser.close();

@@ -29,6 +29,7 @@ export interface FirstScreenSpec {
   baseUrl: string;
   cookie: string;
   runs: number;
+  log?: (msg: string) => void;
 }
 
 /** What the bench reads of measureFirstScreen's answer; every name it might use is tried. */
@@ -87,7 +88,7 @@ export async function firstScreen(spec: FirstScreenSpec): Promise<FirstScreenRes
   if (!existsSync(file)) return { missing: 'bench/first-screen.ts is not there' };
   const mod = (await import(pathToFileURL(file).href)) as { measureFirstScreen?: Measure };
   if (typeof mod.measureFirstScreen !== 'function') return { missing: 'bench/first-screen.ts exports no measureFirstScreen' };
-  const raw = await mod.measureFirstScreen(spec);
+  const raw = await mod.measureFirstScreen({ ...spec, log: (msg: string) => console.error(`[bench]   first screen ${msg}`) });
   const r = (raw ?? {}) as Record<string, unknown>;
   const median = (typeof r.median === 'object' && r.median ? r.median : r) as Record<string, unknown>;
   return {

@@ -25,6 +25,9 @@ function table(rows: string[][], log: (msg: string) => void): void {
   }
 }
 
+/** The issue's goals: five ratios over the bare route (register page, /api/me, order list, release queue, line status), the search against the page and its flatness, the LCP and the bytes. */
+const GOALS = 9;
+
 export function verdicts(m: Record<string, Measured>, searchAt: [number, Measured][], fs: FirstScreenResult | undefined, log: (msg: string) => void, searchNewAt: [number, Measured][] = []): boolean {
   log('');
   log(`every target, ${m.lines ? '' : '(main size not measured) '}50 connections, Accept-Encoding: gzip, deflate, br:`);
@@ -75,6 +78,9 @@ export function verdicts(m: Record<string, Measured>, searchAt: [number, Measure
   log('issue 11, each measure against its goal:');
   table([['measure', 'value', 'goal', 'result'], ...rows.map(([a, b, c, ok]) => [a, b, c, ok === undefined ? '' : ok ? 'pass' : 'FAIL'])], log);
   const failed = rows.filter(([, , , ok]) => ok === false).length;
-  log(failed ? `${failed} of ${rows.filter(([, , , ok]) => ok !== undefined).length} goals not met` : 'every goal met');
-  return failed === 0;
+  const judged = rows.filter(([, , , ok]) => ok !== undefined).length;
+  // "Every goal met" only when every goal of the issue's table was measured in this run.
+  const missing = GOALS - judged;
+  log(failed ? `${failed} of ${judged} goals measured not met${missing > 0 ? `; ${missing} not measured` : ''}` : missing > 0 ? `the ${judged} goals measured were met; ${missing} of the ${GOALS} not measured in this run` : 'every goal met');
+  return failed === 0 && missing <= 0;
 }

@@ -148,7 +148,7 @@ describe('answers and the client’s files travel compressed', () => {
   };
 
   it('a list is sent with brotli to a browser that takes it, gzip to one that takes only gzip, and as is otherwise', async () => {
-    await makeLines(uniquePrefix('BR'), Array.from({ length: 30 }, () => ({})));
+    await makeLines(uniquePrefix('BR'), Array.from({ length: 50 }, () => ({}))); // a full page whatever else the register holds
     const as = (encoding: string) => users.planner.raw('/api/lines?pageSize=50', { headers: { 'accept-encoding': encoding } });
     const br = await as('gzip, deflate, br');
     expect(br.headers.get('content-encoding')).toBe('br');
@@ -177,3 +177,33 @@ describe('answers and the client’s files travel compressed', () => {
   });
 });
 
+
+describe('security headers: the page as a document, API answers as data', () => {
+  it('the page carries the whole set, with a content policy that lets it load its own scripts and images', async () => {
+    const page = await fetch(`${APP}/lines`);
+    expect(page.status).toBe(200);
+    const csp = page.headers.get('content-security-policy') ?? '';
+    expect(csp).toContain("default-src 'self'");
+    expect(csp).toContain("img-src 'self' data: blob:");
+    expect(csp).toContain("frame-ancestors 'self'");
+    expect(page.headers.get('cross-origin-opener-policy')).toBe('same-origin');
+    expect(page.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(page.headers.get('x-frame-options')).toBe('SAMEORIGIN');
+  });
+
+  it('an API answer, signed in or refused, allows no content and no framing, is never sniffed and not embeddable elsewhere', async () => {
+    const answers = [await users.planner.raw('/api/me'), await users.planner.raw('/api/lines?pageSize=5'), await fetch(`${APP}/api/lines`)];
+    expect(answers.map((r) => r.status)).toEqual([200, 200, 401]);
+    for (const res of answers) {
+      expect(res.headers.get('content-security-policy')).toBe("default-src 'none';frame-ancestors 'none'");
+      expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+      expect(res.headers.get('x-frame-options')).toBe('DENY');
+      expect(res.headers.get('cross-origin-resource-policy')).toBe('same-origin');
+      expect(res.headers.get('strict-transport-security')).toContain('max-age=');
+      expect(res.headers.get('cache-control')).toBe('no-store');
+      // the document-only ones are not sent with data
+      expect(res.headers.get('cross-origin-opener-policy')).toBeNull();
+      expect(res.headers.get('x-xss-protection')).toBeNull();
+    }
+  });
+});
