@@ -137,10 +137,17 @@ async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'lo
 
     const page = await context.newPage();
     // BENCH_FIRST_SCREEN_TRACE=<dir>: a Chromium performance trace of each measured run (open it in the DevTools' Performance panel).
-    if (trace) await browser.startTracing(page, { path: trace, screenshots: false, categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8.execute', 'blink.user_timing', 'loading'] });
+    if (trace && !process.env.BENCH_FIRST_SCREEN_JS_PROFILE) await browser.startTracing(page, { path: trace, screenshots: false, categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8.execute', 'blink.user_timing', 'loading'] });
     await page.addInitScript(PAGE_PROBE(o.rowSelector));
     const cdp: CDPSession = await context.newCDPSession(page);
     await cdp.send('Network.enable');
+    // BENCH_FIRST_SCREEN_JS_PROFILE=<dir>: a V8 CPU profile of the page's scripts per measured run (beside a trace, when both are asked).
+    const jsProfile = trace && process.env.BENCH_FIRST_SCREEN_JS_PROFILE ? path.join(process.env.BENCH_FIRST_SCREEN_JS_PROFILE, path.basename(trace).replace(/\.json$/, '.cpuprofile')) : undefined;
+    if (jsProfile) {
+      await cdp.send('Profiler.enable');
+      await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+      await cdp.send('Profiler.start');
+    }
     await cdp.send('Emulation.setCPUThrottlingRate', { rate: o.cpuSlowdown });
 
     const types = new Map<string, string>();
@@ -204,7 +211,13 @@ async function oneRun(browser: Browser, o: Required<Omit<FirstScreenOptions, 'lo
       return { firstRowMs: w.__firstRowMs, lcp, timeline };
     });
     counting = false;
-    if (trace) await browser.stopTracing();
+    if (jsProfile) {
+      const { profile } = await cdp.send('Profiler.stop');
+      const { mkdirSync, writeFileSync } = await import('node:fs');
+      mkdirSync(path.dirname(jsProfile), { recursive: true });
+      writeFileSync(jsProfile, JSON.stringify(profile));
+    }
+    if (trace && !process.env.BENCH_FIRST_SCREEN_JS_PROFILE) await browser.stopTracing();
 
     if (o.countServiceWorker) {
       // The precache starts once the person is known; wait for the worker to be ready and its fetches to stop.
