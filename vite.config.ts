@@ -94,7 +94,7 @@ export default defineConfig({
     // in a trace), while the chunks the entry imports are compiled off the main thread as they
     // stream in. The cost is one round trip: the entry's imports are found when it arrives. Cold
     // /lines at 4×: largest contentful paint 2.5 s against 3.2 s with the preloads. The register's
-    // page chunk is still asked for early, by src/app/first-screen-fetch.ts.
+    // page is in the first bundle (src/app/router.tsx imports it).
     modulePreload: false,
     // Libraries that only some pages use get chunks of their own, so the first page loads less.
     rolldownOptions: {

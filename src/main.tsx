@@ -1,10 +1,6 @@
 /// <reference types="vite-plugin-pwa/vanillajs" />
 // First: asks for the first screen's data before the rest of the app's code starts up.
 import '@/app/first-screen-fetch';
-// The register's page is in the first bundle (the router's lazy import of it then finds it loaded):
-// it is where planners land. As a chunk of its own, its code and then its six small imports were
-// found one after the other behind the shell's first render: 0.3–0.4 s of a tablet's first screen.
-import '@/app/routes/lines';
 import { StrictMode } from 'react';
 import { registerSW } from 'virtual:pwa-register';
 import { createRoot } from 'react-dom/client';

@@ -85,7 +85,7 @@ interface Kept {
   computedAt: number;
   until: number;
   at: number;
-  /** Encodings of the value made for answers (server/http/kept-answer.ts), kept with it. */
+  /** Encodings of the value made for answers (server/middleware/kept-answer.ts), kept with it. */
   encoded?: Map<string, Buffer>;
 }
 

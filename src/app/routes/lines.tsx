@@ -12,7 +12,7 @@ import { PageHeader } from '@/components/ui/card';
 import { Notice } from '@/components/ui/notice';
 import { Pager } from '@/components/ui/pager';
 
-// Its loader is in src/app/first-screen-loaders.ts, so the register is asked for before this chunk arrives;
+// Its loader is in src/app/first-screen-loaders.ts, so the register is asked for before this page's code runs (it is in the first bundle: src/app/router.tsx);
 // the page draws without waiting for it and fills the table in when it comes.
 
 const PAGE_SIZES = [25, 50, 100];
